@@ -1,0 +1,3 @@
+grammar Contour;
+script : EOF ;
+WS : [ \t\r\n]+ -> skip ;
