@@ -1,7 +1,203 @@
 package dev.contour.cli;
 
+import dev.contour.ContourException;
+import dev.contour.eval.Interpreter;
+import dev.contour.eval.InterpreterOptions;
+import dev.contour.eval.OutputFormat;
+import dev.contour.eval.RunResult;
+import dev.contour.lang.Diagnostic;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.ServiceLoader;
+
+/**
+ * The {@code contour} command: {@code run}, {@code check}, {@code bench}, and whatever
+ * {@link Subcommand}s other packages contribute ({@code repl}). Exit codes: 0 ok, 1 a check
+ * failed, 2 bad input or usage.
+ */
 public final class Main {
+    public static final String VERSION = "0.1.0";
+    public static final int OK = 0;
+    public static final int CHECK_FAILED = 1;
+    public static final int BAD_INPUT = 2;
+
+    private static final String USAGE = """
+            usage: contour COMMAND [OPTIONS] [FILE...]
+
+            commands:
+              run FILE...      run derivation scripts, printing what they show and check
+              check FILE...    run scripts, printing only their checks (one line each)
+              repl             an interactive session
+              bench [NAME]     list benchmark workloads, or time one
+
+            options:
+              --latex          print shown values as LaTeX
+              --json           print shown values and checks as JSON, one object per line
+              --rules=DIR      where 'use' looks for libraries (default: the project's rules/)
+              --debug          show Java detail (stack traces) on errors
+              -h, --help       this help
+              -V, --version    the version
+
+            exit status: 0 all checks held, 1 a check failed, 2 bad input or usage
+            """;
+
+    private Main() { }
+
     public static void main(String[] args) {
-        System.out.println("contour 0.1.0");
+        int code = run(args, System.in, System.out, System.err);
+        System.out.flush();
+        System.exit(code);
+    }
+
+    /** Runs the command line in-process (tests call this); returns the exit code. */
+    public static int run(String[] args, InputStream in, PrintStream out, PrintStream err) {
+        List<String> rest = new ArrayList<>(Arrays.asList(args));
+        Options options = new Options();
+        List<String> operands = new ArrayList<>();
+        boolean endOfOptions = false;
+        for (String a : rest) {
+            if (endOfOptions || !a.startsWith("-") || a.equals("-")) {
+                operands.add(a);
+                continue;
+            }
+            switch (a) {
+                case "--" -> endOfOptions = true;
+                case "--latex" -> options.format = OutputFormat.LATEX;
+                case "--json" -> options.format = OutputFormat.JSON;
+                case "--debug" -> options.debug = true;
+                case "-h", "--help" -> {
+                    out.print(usage());
+                    return OK;
+                }
+                case "-V", "--version" -> {
+                    out.println("contour " + VERSION);
+                    return OK;
+                }
+                default -> {
+                    if (a.startsWith("--rules=")) {
+                        options.rules = Path.of(a.substring("--rules=".length()));
+                    } else if (operands.isEmpty() || !isExternal(operands.get(0))) {
+                        err.println("contour: unknown option '" + a + "' (see 'contour --help')");
+                        return BAD_INPUT;
+                    } else {
+                        operands.add(a); // options of a contributed command are its own business
+                    }
+                }
+            }
+        }
+        if (operands.isEmpty()) {
+            err.print(usage());
+            return BAD_INPUT;
+        }
+        String command = operands.get(0);
+        List<String> files = operands.subList(1, operands.size());
+        switch (command) {
+            case "run":
+                return runFiles(files, options, false, out, err);
+            case "check":
+                return runFiles(files, options, true, out, err);
+            case "bench":
+                return Bench.run(files, out, err);
+            default:
+                for (Subcommand s : ServiceLoader.load(Subcommand.class)) {
+                    if (s.name().equals(command)) {
+                        List<String> passOn = new ArrayList<>(rest);
+                        passOn.remove(command);
+                        return s.run(passOn, in, out, err);
+                    }
+                }
+                if (command.equals("repl")) {
+                    err.println("contour: the 'repl' command is not part of this build");
+                } else {
+                    err.println("contour: unknown command '" + command + "' (see 'contour --help')");
+                }
+                return BAD_INPUT;
+        }
+    }
+
+    private static boolean isExternal(String command) {
+        return !List.of("run", "check", "bench").contains(command);
+    }
+
+    private static String usage() {
+        StringBuilder extra = new StringBuilder();
+        for (Subcommand s : ServiceLoader.load(Subcommand.class)) {
+            if (!s.name().equals("repl")) {
+                extra.append(String.format("  %-16s %s%n", s.name(), s.summary()));
+            }
+        }
+        if (extra.length() == 0) {
+            return USAGE;
+        }
+        return USAGE.replace("\noptions:", extra + "\noptions:");
+    }
+
+    private static final class Options {
+        OutputFormat format = OutputFormat.PLAIN;
+        boolean debug;
+        Path rules;
+    }
+
+    private static int runFiles(List<String> files, Options o, boolean checksOnly, PrintStream out, PrintStream err) {
+        if (files.isEmpty()) {
+            err.println("contour: no script given (usage: contour " + (checksOnly ? "check" : "run") + " FILE...)");
+            return BAD_INPUT;
+        }
+        boolean failed = false;
+        for (String file : files) {
+            if (files.size() > 1 && !checksOnly && o.format == OutputFormat.PLAIN) {
+                out.println("== " + file + " ==");
+            }
+            String text;
+            try {
+                text = Files.readString(Path.of(file), StandardCharsets.UTF_8);
+            } catch (NoSuchFileException e) {
+                err.println("contour: no such file: " + file);
+                return BAD_INPUT;
+            } catch (IOException | RuntimeException e) {
+                err.println("contour: cannot read " + file + ": " + e.getMessage());
+                return BAD_INPUT;
+            }
+            InterpreterOptions options = new InterpreterOptions(out, o.format, checksOnly, o.rules, o.debug);
+            try {
+                RunResult result = new Interpreter(options).run(text, file);
+                failed |= !result.ok();
+            } catch (ContourException e) {
+                out.flush();
+                err.print(Diagnostic.render(e, sourceOf(e, file, text)));
+                if (o.debug) {
+                    e.printStackTrace(err);
+                }
+                return BAD_INPUT;
+            } catch (RuntimeException | StackOverflowError | OutOfMemoryError e) {
+                out.flush();
+                err.println("contour: internal error: " + e + (o.debug ? "" : " (run with --debug for details)"));
+                if (o.debug) {
+                    e.printStackTrace(err);
+                }
+                return BAD_INPUT;
+            }
+        }
+        return failed ? CHECK_FAILED : OK;
+    }
+
+    /** The text of the file an error points into: the script itself or a library it used. */
+    private static String sourceOf(ContourException e, String file, String text) {
+        if (e.span() == null || e.span().file().equals(file)) {
+            return text;
+        }
+        try {
+            return Files.readString(Path.of(e.span().file()), StandardCharsets.UTF_8);
+        } catch (IOException | RuntimeException x) {
+            return null;
+        }
     }
 }

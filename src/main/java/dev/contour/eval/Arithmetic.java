@@ -1,0 +1,142 @@
+package dev.contour.eval;
+
+import dev.contour.ContourException;
+import dev.contour.Span;
+import dev.contour.algebra.Expression;
+import dev.contour.lang.Expr.Operator;
+import dev.contour.term.Term;
+import dev.contour.term.Terms;
+import java.util.List;
+
+/**
+ * The operators on values. Rational values stay {@link Expression}s throughout (no term trees);
+ * symbolic terms combine as trees and are normalised at once, falling back to expressions when the
+ * result is rational; other kinds decide for themselves through {@link OperandValue}.
+ */
+public final class Arithmetic {
+    private Arithmetic() { }
+
+    public static Value binary(Operator op, Value left, Value right, Span span, EvaluationLimits limits) {
+        try {
+            if (left instanceof ExprValue a && right instanceof ExprValue b) {
+                return new ExprValue(expressions(op, a.value(), b.value(), span, limits));
+            }
+            if (isSymbolic(left) && isSymbolic(right)) {
+                return terms(op, term(left), right, span, limits);
+            }
+            if (left instanceof OperandValue o) {
+                Value v = o.combine(op, right, true, span);
+                if (v != null) {
+                    return v;
+                }
+            }
+            if (right instanceof OperandValue o) {
+                Value v = o.combine(op, left, false, span);
+                if (v != null) {
+                    return v;
+                }
+            }
+        } catch (ContourException e) {
+            throw e.at(span);
+        }
+        throw new ContourException("cannot apply '" + op.symbol() + "' to " + Values.describe(left) + " and "
+                + Values.describe(right), span);
+    }
+
+    public static Value negate(Value v, Span span) {
+        if (v instanceof ExprValue e) {
+            return new ExprValue(e.value().negate());
+        }
+        if (v instanceof TermValue t) {
+            return fromTerm(new Term.Product(List.of(Terms.of(Expression.constant(-1)), t.value())));
+        }
+        if (v instanceof OperandValue o) {
+            return o.negate(span);
+        }
+        throw new ContourException("cannot negate " + Values.describe(v), span);
+    }
+
+    /** True when {@code v} is zero; null when the kind cannot tell. */
+    public static Boolean isZero(Value v) {
+        if (v instanceof ExprValue e) {
+            return e.value().isZero();
+        }
+        if (v instanceof TermValue) {
+            return false; // normalised terms that are zero are Leaf zeros, i.e. ExprValues
+        }
+        if (v instanceof OperandValue o) {
+            return o.isZero();
+        }
+        return null;
+    }
+
+    /** A normalised term as a value: an expression when rational. */
+    public static Value fromTerm(Term t) {
+        Term n = Terms.normalize(t);
+        return n instanceof Term.Leaf l ? new ExprValue(l.value()) : new TermValue(n);
+    }
+
+    static boolean isSymbolic(Value v) {
+        return v instanceof ExprValue || v instanceof TermValue;
+    }
+
+    /** The value as a term (expressions become leaves). */
+    public static Term term(Value v) {
+        if (v instanceof ExprValue e) {
+            return Terms.of(e.value());
+        }
+        if (v instanceof TermValue t) {
+            return t.value();
+        }
+        throw new IllegalArgumentException("not symbolic: " + v.kind());
+    }
+
+    private static Expression expressions(Operator op, Expression a, Expression b, Span span, EvaluationLimits limits) {
+        return switch (op) {
+            case ADD -> a.add(b);
+            case SUBTRACT -> a.subtract(b);
+            case MULTIPLY -> a.multiply(b);
+            case DIVIDE -> {
+                if (b.isZero()) {
+                    throw new ContourException("division by zero", span);
+                }
+                yield a.divide(b);
+            }
+            case POWER -> {
+                int e = exponent(new ExprValue(b), span, limits);
+                if (e < 0 && a.isZero()) {
+                    throw new ContourException("zero to a negative power", span);
+                }
+                yield a.pow(e);
+            }
+        };
+    }
+
+    private static Value terms(Operator op, Term a, Value right, Span span, EvaluationLimits limits) {
+        Term b = term(right);
+        Term result = switch (op) {
+            case ADD -> new Term.Sum(List.of(a, b));
+            case SUBTRACT -> new Term.Sum(List.of(a, new Term.Product(List.of(Terms.of(Expression.constant(-1)), b))));
+            case MULTIPLY -> new Term.Product(List.of(a, b));
+            case DIVIDE -> {
+                if (right instanceof ExprValue e && e.value().isZero()) {
+                    throw new ContourException("division by zero", span);
+                }
+                yield new Term.Product(List.of(a, new Term.Power(b, -1)));
+            }
+            case POWER -> new Term.Power(a, exponent(right, span, limits));
+        };
+        return fromTerm(result);
+    }
+
+    private static int exponent(Value v, Span span, EvaluationLimits limits) {
+        if (!(v instanceof ExprValue e) || !e.value().isConstant()) {
+            throw new ContourException("exponents must be integers, not " + Values.describe(v), span);
+        }
+        int n = Values.integer(v, span, "the exponent");
+        if (Math.abs((long) n) > limits.maxExponent()) {
+            throw new ContourException("exponent " + n + " is past the limit of " + limits.maxExponent(), span);
+        }
+        return n;
+    }
+}

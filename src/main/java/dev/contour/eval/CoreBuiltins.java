@@ -1,0 +1,58 @@
+package dev.contour.eval;
+
+import dev.contour.ContourException;
+import dev.contour.Span;
+import dev.contour.algebra.Expression;
+import dev.contour.algebra.Monomial;
+import dev.contour.algebra.RationalFunction;
+import dev.contour.term.Term;
+import dev.contour.term.Terms;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+/** The built-ins every interpreter has: Gamma, poch, factorial, binom and coefficient extraction. */
+final class CoreBuiltins {
+    private CoreBuiltins() { }
+
+    static void register(BuiltinRegistry r) {
+        r.register(Builtin.of(Terms.GAMMA, 1, "Gamma(x): exact at integers; ratios with integer shifts reduce to Pochhammer products",
+                (a, span) -> symbolic(Terms.GAMMA, List.of(a.get(0)), span)));
+        r.register(Builtin.of(Terms.POCH, 2, "poch(x, n) = x*(x + 1)*...*(x + n - 1), the Pochhammer symbol; exact for integer n",
+                (a, span) -> symbolic(Terms.POCH, List.of(a.get(0), a.get(1)), span)));
+        r.register(Builtin.of(Terms.FACTORIAL, 1, "factorial(n) = n!, exact at non-negative integers",
+                (a, span) -> symbolic(Terms.FACTORIAL, List.of(a.get(0)), span)));
+        r.register(Builtin.of(Terms.BINOM, 2, "binom(n, k), the binomial coefficient; exact for integer k",
+                (a, span) -> symbolic(Terms.BINOM, List.of(a.get(0), a.get(1)), span)));
+        r.register(Builtin.of("coefficient", 2, "coefficient(e, m): the coefficient of the collected monomial m in e",
+                CoreBuiltins::coefficient));
+    }
+
+    /** {@code function(args)} as a normalised term, an expression whenever it is rational. */
+    static Value symbolic(String function, List<Value> args, Span span) {
+        List<Term> terms = new ArrayList<>();
+        for (Value v : args) {
+            if (!Arithmetic.isSymbolic(v)) {
+                throw new ContourException(function + " needs expressions, not " + Values.describe(v), span);
+            }
+            terms.add(Arithmetic.term(v));
+        }
+        try {
+            return Arithmetic.fromTerm(new Term.Apply(function, terms));
+        } catch (ContourException e) {
+            throw e.at(span);
+        }
+    }
+
+    private static Value coefficient(Arguments a, Span span) {
+        Expression e = a.expression(0);
+        Expression m = a.expression(1);
+        Map<Monomial, RationalFunction> terms = m.terms();
+        if (terms.size() != 1 || !terms.values().iterator().next().isOne()) {
+            throw new ContourException("coefficient: the second argument must be a monomial in collected variables, such as sigma^2*tau",
+                    a.spanOf(1));
+        }
+        RationalFunction c = e.terms().get(terms.keySet().iterator().next());
+        return new ExprValue(c == null ? Expression.ZERO : Expression.of(c));
+    }
+}

@@ -1,0 +1,706 @@
+package dev.contour.eval;
+
+import dev.contour.ContourException;
+import dev.contour.Span;
+import dev.contour.algebra.Expression;
+import dev.contour.algebra.Rational;
+import dev.contour.lang.Expr;
+import dev.contour.lang.IndexSet;
+import dev.contour.lang.ScriptParser;
+import dev.contour.lang.Stmt;
+import dev.contour.term.Term;
+import dev.contour.term.Terms;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayDeque;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.Deque;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeSet;
+
+/**
+ * Runs Contour scripts. One interpreter is one session: definitions persist across
+ * {@link #run} calls (the REPL feeds it one input at a time).
+ */
+public final class Interpreter {
+    private final InterpreterOptions options;
+    private final BuiltinRegistry registry;
+    private final Display display;
+    private final Map<String, Value> globals = new LinkedHashMap<>();
+    /** Declared variables: name to whether it is collected. */
+    private final Map<String, Boolean> variables = new HashMap<>();
+    private final SessionLog log = new SessionLog();
+    private final Set<Path> used = new HashSet<>();
+    private Deque<Map<String, Value>> frames = new ArrayDeque<>();
+    private Path directory;
+    private int fileDepth;
+    private int callDepth;
+    private long deadline;
+    private long loopIterations;
+    private int passed;
+    private int failed;
+
+    public Interpreter(InterpreterOptions options) {
+        this(options, BuiltinRegistry.standard());
+    }
+
+    public Interpreter(InterpreterOptions options, BuiltinRegistry registry) {
+        this.options = options;
+        this.registry = registry;
+        this.display = new Display(options.format());
+    }
+
+    /** The built-ins this session can call; register more at any time. */
+    public BuiltinRegistry builtins() {
+        return registry;
+    }
+
+    public InterpreterOptions options() {
+        return options;
+    }
+
+    /**
+     * Runs a script (or one REPL input) in this session.
+     *
+     * @param fileName used in error locations; {@code use} resolves relative to its folder
+     * @throws ContourException with a span on bad input
+     */
+    public RunResult run(String sourceText, String fileName) {
+        int passedBefore = passed;
+        int failedBefore = failed;
+        deadline = options.limits().timed() ? System.nanoTime() + options.limits().timeLimit().toNanos() : Long.MAX_VALUE;
+        loopIterations = 0;
+        Path savedDirectory = directory;
+        Deque<Map<String, Value>> savedFrames = frames;
+        try {
+            directory = directoryOf(fileName);
+            List<Stmt> statements = ScriptParser.parseScript(sourceText, fileName);
+            frames = new ArrayDeque<>();
+            for (Stmt s : statements) {
+                execute(s);
+            }
+        } catch (StackOverflowError e) {
+            throw new ContourException("the script nests too deeply to evaluate");
+        } finally {
+            directory = savedDirectory;
+            frames = savedFrames;
+            callDepth = 0;
+        }
+        return new RunResult(passed - passedBefore, failed - failedBefore);
+    }
+
+    /** Evaluates one expression in this session, without printing. */
+    public Value evaluate(String expressionText, String fileName) {
+        deadline = options.limits().timed() ? System.nanoTime() + options.limits().timeLimit().toNanos() : Long.MAX_VALUE;
+        try {
+            return eval(ScriptParser.parseExpression(expressionText, fileName));
+        } catch (StackOverflowError e) {
+            throw new ContourException("the expression nests too deeply to evaluate");
+        } finally {
+            callDepth = 0;
+        }
+    }
+
+    /** Every name a script can use here: definitions, variables, unknown families and built-ins. */
+    public Set<String> namesInScope() {
+        Set<String> names = new TreeSet<>(globals.keySet());
+        names.addAll(registry.names());
+        return Collections.unmodifiableSet(names);
+    }
+
+    /** The value bound to a name in this session, or null. */
+    public Value lookup(String name) {
+        Value v = globals.get(name);
+        return v != null ? v : registry.lookup(name).orElse(null);
+    }
+
+    /** This session's definitions as script text that rebuilds them (for saving a REPL session). */
+    public String definitionsAsScript() {
+        return log.asScript();
+    }
+
+    // ================================================================ statements
+
+    private void execute(Stmt s) {
+        tick(s.span());
+        if (s instanceof Stmt.Vars v) {
+            for (String name : v.names()) {
+                declareVariable(name, v.collected(), v.span());
+            }
+            if (fileDepth == 0) {
+                log.add(SessionLog.Kind.VARS, null, "vars " + String.join(", ", v.names()) + (v.collected() ? " collected" : ""));
+            }
+        } else if (s instanceof Stmt.Let l) {
+            checkFreeName(l.name(), l.span(), true);
+            Value value = eval(l.value());
+            globals.put(l.name(), value);
+            if (fileDepth == 0) {
+                String text = display.scriptText(value);
+                log.add(SessionLog.Kind.LET, l.name(), text == null
+                        ? "# let " + l.name() + " = <" + value.kind() + ">  (not saved: no script form)"
+                        : "let " + l.name() + " = " + text);
+            }
+        } else if (s instanceof Stmt.Def d) {
+            checkFreeName(d.name(), d.span(), true);
+            globals.put(d.name(), new FunctionValue(d.name(), d.parameters(), d.body(), d.source()));
+            if (fileDepth == 0) {
+                log.add(SessionLog.Kind.OTHER, d.name(), d.source());
+            }
+        } else if (s instanceof Stmt.Unknown u) {
+            declareUnknowns(u);
+            if (fileDepth == 0) {
+                log.add(SessionLog.Kind.OTHER, u.name(), u.source());
+            }
+        } else if (s instanceof Stmt.Use u) {
+            use(u);
+        } else if (s instanceof Stmt.Show sh) {
+            Value v = eval(sh.value());
+            if (!options.checksOnly()) {
+                options.out().print(display.show(sh, v));
+            }
+        } else if (s instanceof Stmt.Check c) {
+            Value left = eval(c.left());
+            Value right = eval(c.right());
+            CheckOutcome outcome = CheckOutcome.compare(left, right, c.span(), options.limits());
+            if (outcome.holds()) {
+                passed++;
+            } else {
+                failed++;
+            }
+            options.out().print(display.check(c, outcome, options.checksOnly()));
+        } else if (s instanceof Stmt.For f) {
+            Value range = eval(f.range());
+            List<Value> members = members(range, f.range().span(), "a 'for' loop");
+            Map<String, Value> frame = new HashMap<>();
+            frames.push(frame);
+            try {
+                for (Value m : members) {
+                    if (++loopIterations > options.limits().maxLoopIterations()) {
+                        throw new ContourException("more than " + options.limits().maxLoopIterations()
+                                + " loop iterations in one run", f.span());
+                    }
+                    frame.put(f.variable(), m);
+                    for (Stmt body : f.body()) {
+                        execute(body);
+                    }
+                }
+            } finally {
+                frames.pop();
+            }
+        } else if (s instanceof Stmt.Rule r) {
+            registry.ruleSink(r.span()).accept(r);
+        } else {
+            throw new IllegalStateException("interpreter: unhandled statement " + s.getClass().getSimpleName());
+        }
+    }
+
+    private void declareVariable(String name, boolean collected, Span span) {
+        Boolean existing = variables.get(name);
+        if (existing != null) {
+            if (existing != collected) {
+                throw new ContourException("'" + name + "' is already declared as " + (existing ? "a collected" : "an inner")
+                        + " variable", span);
+            }
+            return;
+        }
+        checkFreeName(name, span, false);
+        variables.put(name, collected);
+        globals.put(name, new ExprValue(collected ? Expression.collectedVariable(name) : Expression.variable(name)));
+    }
+
+    /** Rejects names that would hide a variable, a built-in or an unknown family. */
+    private void checkFreeName(String name, Span span, boolean rebindable) {
+        if (registry.lookup(name).isPresent()) {
+            throw new ContourException("'" + name + "' is a built-in function; pick another name", span);
+        }
+        if (variables.containsKey(name)) {
+            throw new ContourException("'" + name + "' is already a variable; pick another name", span);
+        }
+        Value existing = globals.get(name);
+        if (existing instanceof UnknownFamilyValue) {
+            throw new ContourException("'" + name + "' is already an unknown family; pick another name", span);
+        }
+        if (existing != null && !rebindable) {
+            throw new ContourException("'" + name + "' is already defined; pick another name", span);
+        }
+    }
+
+    private void declareUnknowns(Stmt.Unknown u) {
+        checkFreeName(u.name(), u.span(), false);
+        List<long[]> tuples = enumerate(u.indices());
+        List<List<Integer>> members = new ArrayList<>();
+        for (long[] t : tuples) {
+            List<Integer> m = new ArrayList<>();
+            for (long x : t) {
+                m.add(Math.toIntExact(x));
+            }
+            members.add(m);
+        }
+        String description = u.name() + "[" + String.join(", ", u.indices().names()) + "]"
+                + (u.source().contains(" with ") ? " with " + u.source().substring(u.source().indexOf(" with ") + 6) : "");
+        globals.put(u.name(), new UnknownFamilyValue(u.name(), u.indices().names(), members, description));
+    }
+
+    private void use(Stmt.Use u) {
+        Path file = resolve(u.path(), u.span());
+        if (!used.add(file.toAbsolutePath().normalize())) {
+            return; // each library loads once per session
+        }
+        String text;
+        try {
+            text = Files.readString(file, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new ContourException("cannot read '" + file + "': " + e.getMessage(), u.span());
+        }
+        Path savedDirectory = directory;
+        Deque<Map<String, Value>> savedFrames = frames;
+        fileDepth++;
+        try {
+            directory = file.toAbsolutePath().getParent();
+            frames = new ArrayDeque<>();
+            for (Stmt s : ScriptParser.parseScript(text, file.toString())) {
+                execute(s);
+            }
+        } finally {
+            fileDepth--;
+            directory = savedDirectory;
+            frames = savedFrames;
+        }
+        if (fileDepth == 0) {
+            log.add(SessionLog.Kind.OTHER, null, "use \"" + u.path().replace("\\", "\\\\").replace("\"", "\\\"") + "\"");
+        }
+    }
+
+    private Path resolve(String name, Span span) {
+        List<Path> tried = new ArrayList<>();
+        Path given = Path.of(name);
+        if (given.isAbsolute()) {
+            tried.add(given);
+        } else {
+            if (directory != null) {
+                tried.add(directory.resolve(name));
+            }
+            tried.add(options.rulesDirectory().resolve(name));
+            if (name.startsWith("rules/")) {
+                tried.add(options.rulesDirectory().resolve(name.substring(6)));
+            }
+        }
+        for (Path p : tried) {
+            if (Files.isRegularFile(p)) {
+                return p;
+            }
+        }
+        throw new ContourException("cannot find '" + name + "' (looked in " + String.join(", ",
+                tried.stream().map(p -> p.getParent() == null ? "." : p.getParent().toString()).distinct().toList()) + ")", span);
+    }
+
+    private static Path directoryOf(String fileName) {
+        if (fileName == null) {
+            return null;
+        }
+        try {
+            Path p = Path.of(fileName).toAbsolutePath();
+            return Files.isRegularFile(p) ? p.getParent() : Path.of("").toAbsolutePath();
+        } catch (RuntimeException e) {
+            return Path.of("").toAbsolutePath();
+        }
+    }
+
+    // ================================================================ expressions
+
+    Value eval(Expr e) {
+        try {
+            return evalUnlocated(e);
+        } catch (ContourException x) {
+            throw x.at(e.span());
+        }
+    }
+
+    private Value evalUnlocated(Expr e) {
+        if (e instanceof Expr.Number n) {
+            return new ExprValue(Expression.constant(Rational.of(n.numerator(), n.denominator())));
+        }
+        if (e instanceof Expr.Name n) {
+            return name(n);
+        }
+        if (e instanceof Expr.Binary b) {
+            return Arithmetic.binary(b.operator(), eval(b.left()), eval(b.right()), b.span(), options.limits());
+        }
+        if (e instanceof Expr.Negate n) {
+            return Arithmetic.negate(eval(n.operand()), n.span());
+        }
+        if (e instanceof Expr.Call c) {
+            return call(c);
+        }
+        if (e instanceof Expr.Index i) {
+            return index(i);
+        }
+        if (e instanceof Expr.Factorial f) {
+            return CoreBuiltins.symbolic(Terms.FACTORIAL, List.of(eval(f.operand())), f.span());
+        }
+        if (e instanceof Expr.Sum s) {
+            return sum(s);
+        }
+        if (e instanceof Expr.At a) {
+            return at(a);
+        }
+        if (e instanceof Expr.With w) {
+            return with(w);
+        }
+        if (e instanceof Expr.Range r) {
+            return range(r);
+        }
+        if (e instanceof Expr.ListOf l) {
+            List<Value> items = new ArrayList<>();
+            for (Expr x : l.items()) {
+                Value v = eval(x);
+                if (v instanceof RangeValue r) {
+                    items.addAll(members(r, x.span(), "a list"));
+                } else {
+                    items.add(v);
+                }
+                if (items.size() > options.limits().maxSetSize()) {
+                    throw new ContourException("the list has more than " + options.limits().maxSetSize() + " items", l.span());
+                }
+            }
+            return new ListValue(items);
+        }
+        if (e instanceof Expr.Text t) {
+            return new StringValue(t.value());
+        }
+        if (e instanceof Expr.Solve s) {
+            return solve(s);
+        }
+        throw new IllegalStateException("interpreter: unhandled expression " + e.getClass().getSimpleName());
+    }
+
+    private Value name(Expr.Name n) {
+        for (Map<String, Value> frame : frames) {
+            Value v = frame.get(n.name());
+            if (v != null) {
+                return v;
+            }
+        }
+        Value v = globals.get(n.name());
+        if (v != null) {
+            return v;
+        }
+        Builtin b = registry.lookup(n.name()).orElse(null);
+        if (b != null) {
+            return b;
+        }
+        Set<String> candidates = new TreeSet<>(namesInScope());
+        for (Map<String, Value> frame : frames) {
+            candidates.addAll(frame.keySet());
+        }
+        String near = Suggestions.nearest(n.name(), candidates);
+        throw new ContourException("unknown name '" + n.name() + "'" + (near == null ? "" : "; did you mean '" + near + "'?")
+                + (near == null && n.name().length() <= 3 ? " (declare variables with 'vars " + n.name() + "')" : ""), n.span());
+    }
+
+    private Value call(Expr.Call c) {
+        Value callee = eval(c.callee());
+        tick(c.span());
+        if (callee instanceof FunctionValue f) {
+            return callUser(f, c);
+        }
+        if (!(callee instanceof CallableValue callable)) {
+            throw new ContourException(Values.describe(callee) + " cannot be called", c.callee().span());
+        }
+        List<Arguments.Argument> args = new ArrayList<>();
+        for (Expr.Argument a : c.arguments()) {
+            args.add(new Arguments.Argument(a.kind(), a.name(), eval(a.value()), a.span()));
+        }
+        String name = callee instanceof Builtin b ? b.name() : c.callee() instanceof Expr.Name n ? n.name() : "the call";
+        try {
+            return callable.call(new Arguments(name, args), c.span());
+        } catch (ContourException x) {
+            throw x.at(c.span());
+        }
+    }
+
+    private Value callUser(FunctionValue f, Expr.Call c) {
+        if (c.arguments().size() != f.parameters().size()) {
+            throw new ContourException(f.name() + " takes " + f.parameters().size() + " argument"
+                    + (f.parameters().size() == 1 ? "" : "s") + ", not " + c.arguments().size(), c.span());
+        }
+        Map<String, Value> frame = new HashMap<>();
+        for (int i = 0; i < f.parameters().size(); i++) {
+            Expr.Argument a = c.arguments().get(i);
+            if (a.kind() != Expr.ArgumentKind.POSITIONAL) {
+                throw new ContourException(f.name() + " takes positional arguments only", a.span());
+            }
+            frame.put(f.parameters().get(i), eval(a.value()));
+        }
+        if (++callDepth > options.limits().maxCallDepth()) {
+            throw new ContourException("calls nest more than " + options.limits().maxCallDepth()
+                    + " deep (is '" + f.name() + "' recursive?)", c.span());
+        }
+        Deque<Map<String, Value>> saved = frames;
+        frames = new ArrayDeque<>();
+        frames.push(frame);
+        try {
+            return eval(f.body());
+        } finally {
+            frames = saved;
+            callDepth--;
+        }
+    }
+
+    private Value index(Expr.Index i) {
+        Value base = eval(i.base());
+        if (!(base instanceof UnknownFamilyValue family)) {
+            throw new ContourException("only unknown families can be indexed, and this is " + Values.describe(base), i.base().span());
+        }
+        List<Integer> indices = new ArrayList<>();
+        for (Expr x : i.indices()) {
+            indices.add(Values.integer(eval(x), x.span(), "an index"));
+        }
+        return new ExprValue(family.member(indices, i.span()));
+    }
+
+    private Value range(Expr.Range r) {
+        long from = Values.integer(eval(r.from()), r.from().span(), "the start of a range");
+        long to = Values.integer(eval(r.to()), r.to().span(), "the end of a range");
+        long step = r.step() == null ? 1 : Values.integer(eval(r.step()), r.step().span(), "the step of a range");
+        if (step == 0) {
+            throw new ContourException("a range's step cannot be 0", r.step().span());
+        }
+        return new RangeValue(from, to, step);
+    }
+
+    /** The members of a range or list, for loops and index domains. */
+    private List<Value> members(Value v, Span span, String where) {
+        if (v instanceof RangeValue r) {
+            if (r.size() > options.limits().maxSetSize()) {
+                throw new ContourException("the range has " + r.size() + " members, past the limit of "
+                        + options.limits().maxSetSize(), span);
+            }
+            List<Value> out = new ArrayList<>();
+            for (long m : r.members()) {
+                out.add(Values.of(m));
+            }
+            return out;
+        }
+        if (v instanceof ListValue l) {
+            return l.items();
+        }
+        throw new ContourException(where + " needs a range or a list, not " + Values.describe(v), span);
+    }
+
+    private Value sum(Expr.Sum s) {
+        List<long[]> tuples = enumerate(s.indices());
+        List<String> names = s.indices().names();
+        Map<String, Value> frame = new HashMap<>();
+        frames.push(frame);
+        try {
+            Accumulator acc = new Accumulator(s.span(), options.limits());
+            for (long[] t : tuples) {
+                tick(s.span());
+                for (int i = 0; i < names.size(); i++) {
+                    frame.put(names.get(i), Values.of(t[i]));
+                }
+                acc.add(eval(s.body()));
+            }
+            return acc.result();
+        } finally {
+            frames.pop();
+        }
+    }
+
+    /** The tuples of an index set, evaluating domains and constraint sides in the current scope. */
+    private List<long[]> enumerate(IndexSet set) {
+        List<List<Long>> domains = new ArrayList<>();
+        for (IndexSet.Binder b : set.binders()) {
+            if (b.range() == null) {
+                domains.add(null);
+                continue;
+            }
+            List<Long> d = new ArrayList<>();
+            for (Value m : members(eval(b.range()), b.range().span(), "an index domain")) {
+                d.add((long) Values.integer(m, b.range().span(), "an index value"));
+            }
+            domains.add(d.stream().distinct().sorted().toList());
+        }
+        List<IndexSetEnumeration.Probe[]> sides = new ArrayList<>();
+        List<String> names = set.names();
+        for (IndexSet.Constraint c : set.constraints()) {
+            sides.add(new IndexSetEnumeration.Probe[] {probe(c.left(), names), probe(c.right(), names)});
+        }
+        try {
+            return new IndexSetEnumeration(set, domains, sides, options.limits().maxSetSize()).enumerate();
+        } catch (ContourException e) {
+            throw e.at(set.span());
+        }
+    }
+
+    private IndexSetEnumeration.Probe probe(Expr side, List<String> names) {
+        return point -> {
+            Map<String, Value> frame = new HashMap<>();
+            for (int i = 0; i < names.size(); i++) {
+                frame.put(names.get(i), Values.of(point[i]));
+            }
+            frames.push(frame);
+            try {
+                Value v = eval(side);
+                if (!(v instanceof ExprValue x) || !x.value().isConstant()) {
+                    throw new ContourException("index constraints may involve only numbers and the indices, not "
+                            + Values.describe(v), side.span());
+                }
+                return x.value().constantValue();
+            } finally {
+                frames.pop();
+            }
+        };
+    }
+
+    private Value at(Expr.At a) {
+        Value target = eval(a.target());
+        Map<String, Expression> values = new LinkedHashMap<>();
+        boolean linear = true;
+        for (Expr.Assignment x : a.assignments()) {
+            String name = targetName(x.target());
+            Value v = eval(x.value());
+            if (!(v instanceof ExprValue ev)) {
+                throw new ContourException("only rational expressions can be substituted, not " + Values.describe(v), x.value().span());
+            }
+            if (values.put(name, ev.value()) != null) {
+                throw new ContourException("'" + name + "' is substituted twice", x.span());
+            }
+            linear &= Boolean.FALSE.equals(variables.get(name)) && isLinearInner(ev.value());
+        }
+        try {
+            if (target instanceof ExprValue e) {
+                if (linear) {
+                    Map<String, dev.contour.algebra.Polynomial> polys = new LinkedHashMap<>();
+                    values.forEach((k, v) -> polys.put(k, v.asRationalFunction().numerator()));
+                    return new ExprValue(e.value().substituteLinear(polys));
+                }
+                return new ExprValue(e.value().substitute(values));
+            }
+            if (target instanceof TermValue t) {
+                return Arithmetic.fromTerm(Terms.substitute(t.value(), values));
+            }
+            if (target instanceof SubstitutableValue sv) {
+                return sv.substitute(values, a.span());
+            }
+        } catch (ContourException x) {
+            throw x.at(a.span());
+        }
+        throw new ContourException("cannot substitute into " + Values.describe(target), a.target().span());
+    }
+
+    private static boolean isLinearInner(Expression e) {
+        if (!e.isRational() || !e.collectedVariables().isEmpty()) {
+            return false;
+        }
+        var f = e.asRationalFunction();
+        return f.isPolynomial() && f.numerator().totalDegree() <= 1;
+    }
+
+    /** The variable name a substitution target stands for. */
+    private String targetName(Expr.Target t) {
+        Value v = name(new Expr.Name(t.name(), t.span()));
+        if (t.indices().isEmpty()) {
+            if (!variables.containsKey(t.name())) {
+                throw new ContourException("'" + t.name() + "' is not a variable, so it cannot be substituted", t.span());
+            }
+            return t.name();
+        }
+        if (!(v instanceof UnknownFamilyValue family)) {
+            throw new ContourException("'" + t.name() + "' is not an unknown family", t.span());
+        }
+        List<Integer> indices = new ArrayList<>();
+        for (Expr x : t.indices()) {
+            indices.add(Values.integer(eval(x), x.span(), "an index"));
+        }
+        family.member(indices, t.span());
+        return UnknownFamilyValue.memberName(t.name(), indices);
+    }
+
+    private Value with(Expr.With w) {
+        Value target = eval(w.target());
+        Value binding = eval(w.solution());
+        if (!(binding instanceof BindingValue b)) {
+            throw new ContourException("'with' needs a solution, not " + Values.describe(binding), w.solution().span());
+        }
+        if (w.normalizedTarget() != null) {
+            String member = targetName(w.normalizedTarget());
+            b = b.normalized(Expression.collectedVariable(member), eval(w.normalizedValue()), w.normalizedTarget().span());
+        }
+        return b.applyTo(target, w.span());
+    }
+
+    private Value solve(Expr.Solve s) {
+        List<Solver.Condition> conditions = new ArrayList<>();
+        for (Expr.Condition c : s.conditions()) {
+            conditions.add(new Solver.Condition(eval(c.left()), c.right() == null ? null : eval(c.right()), c.span()));
+        }
+        List<UnknownFamilyValue> unknowns = new ArrayList<>();
+        for (String u : s.unknowns()) {
+            Value v = name(new Expr.Name(u, s.span()));
+            if (!(v instanceof UnknownFamilyValue f)) {
+                throw new ContourException("'" + u + "' is not an unknown family", s.span());
+            }
+            unknowns.add(f);
+        }
+        return registry.solver(s.span()).solve(conditions, unknowns, s.span());
+    }
+
+    private void tick(Span span) {
+        if (deadline != Long.MAX_VALUE && System.nanoTime() > deadline) {
+            throw new ContourException("the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms", span);
+        }
+    }
+
+    /** Sums values: expressions merge coefficient maps in place; anything else adds pairwise. */
+    private static final class Accumulator {
+        private final Span span;
+        private final EvaluationLimits limits;
+        private final Map<dev.contour.algebra.Monomial, dev.contour.algebra.RationalFunction> terms = new HashMap<>();
+        private final List<Term> symbolic = new ArrayList<>();
+        private Value other;
+
+        Accumulator(Span span, EvaluationLimits limits) {
+            this.span = span;
+            this.limits = limits;
+        }
+
+        void add(Value v) {
+            if (v instanceof ExprValue e) {
+                e.value().terms().forEach((m, c) -> {
+                    var sum = terms.get(m);
+                    var next = sum == null ? c : sum.add(c);
+                    if (next.isZero()) {
+                        terms.remove(m);
+                    } else {
+                        terms.put(m, next);
+                    }
+                });
+            } else if (v instanceof TermValue t) {
+                symbolic.add(t.value());
+            } else {
+                other = other == null ? v : Arithmetic.binary(Expr.Operator.ADD, other, v, span, limits);
+            }
+        }
+
+        Value result() {
+            Value rational = new ExprValue(Expression.of(terms));
+            Value result = rational;
+            if (!symbolic.isEmpty()) {
+                List<Term> all = new ArrayList<>(symbolic);
+                all.add(Terms.of(((ExprValue) rational).value()));
+                result = Arithmetic.fromTerm(new Term.Sum(all));
+            }
+            return other == null ? result : Arithmetic.binary(Expr.Operator.ADD, other, result, span, limits);
+        }
+    }
+}

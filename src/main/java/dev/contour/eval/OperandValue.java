@@ -1,0 +1,19 @@
+package dev.contour.eval;
+
+import dev.contour.Span;
+import dev.contour.lang.Expr;
+
+/** A value kind that takes part in {@code + - * / ^} with other values. */
+public interface OperandValue extends Value {
+    /**
+     * {@code this op other} when {@code thisOnLeft}, else {@code other op this}; null when this kind
+     * does not combine with {@code other} that way (the evaluator then reports the mismatch).
+     */
+    Value combine(Expr.Operator op, Value other, boolean thisOnLeft, Span span);
+
+    /** {@code -this}. */
+    Value negate(Span span);
+
+    /** True when the value is zero (used by {@code check}). */
+    boolean isZero();
+}

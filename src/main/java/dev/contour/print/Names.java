@@ -1,0 +1,35 @@
+package dev.contour.print;
+
+import java.util.Set;
+
+/** How variable names look in LaTeX: Greek letters by name, subscripts for indices. */
+final class Names {
+    private static final Set<String> GREEK = Set.of("alpha", "beta", "gamma", "delta", "epsilon", "varepsilon",
+            "zeta", "eta", "theta", "vartheta", "iota", "kappa", "lambda", "mu", "nu", "xi", "pi", "rho", "sigma",
+            "tau", "upsilon", "phi", "varphi", "chi", "psi", "omega", "Gamma", "Delta", "Theta", "Lambda", "Xi",
+            "Pi", "Sigma", "Upsilon", "Phi", "Psi", "Omega");
+
+    private Names() { }
+
+    static String latex(String name) {
+        int bracket = name.indexOf('[');
+        if (bracket > 0 && name.endsWith("]")) {
+            return latex(name.substring(0, bracket)) + "_{" + name.substring(bracket + 1, name.length() - 1) + "}";
+        }
+        int underscore = name.indexOf('_');
+        if (underscore > 0 && underscore < name.length() - 1) {
+            return latex(name.substring(0, underscore)) + "_{" + latex(name.substring(underscore + 1)) + "}";
+        }
+        if (GREEK.contains(name)) {
+            return "\\" + name;
+        }
+        int digits = name.length();
+        while (digits > 0 && Character.isDigit(name.charAt(digits - 1))) {
+            digits--;
+        }
+        if (digits > 0 && digits < name.length()) {
+            return latex(name.substring(0, digits)) + "_{" + name.substring(digits) + "}";
+        }
+        return name.length() == 1 ? name : "\\mathrm{" + name + "}";
+    }
+}
