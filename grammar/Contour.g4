@@ -23,12 +23,20 @@ statement
     | 'check' expr '==' expr                                          # checkStatement
     | 'for' IDENT 'in' arith block                                    # forStatement
     | 'rule' ruleName ':' expr 'becomes' expr ('when' expr (',' expr)*)?   # ruleStatement
+    | 'derive' expr usingClause? withinClause?                        # deriveStatement
+    | 'check' expr '==' expr 'by' 'rules' usingClause? withinClause?  # checkByRulesStatement
     | ';'                                                             # emptyStatement
     ;
 
 block : '{' statement* '}' ;
 
 ruleName : IDENT ('-' IDENT)* ;
+
+// Which rule libraries a derivation uses (default: the rules the session has loaded), and its
+// limits, e.g. 'within 500 steps, 2000 nodes, 5 seconds' (the unit is checked by the engine).
+usingClause : 'using' STRING (',' STRING)* ;
+withinClause : 'within' rewriteLimit (',' rewriteLimit)* ;
+rewriteLimit : NUMBER IDENT ;
 
 showOption
     : COLLECTED IDENT (',' IDENT)*      # collectedOption
@@ -83,11 +91,14 @@ primary
     | STRING                                   # stringPrimary
     | '(' expr ')'                             # parenPrimary
     | '{' (expr (',' expr)*)? '}'              # listPrimary
+    | PATTERN_VAR                              # patternPrimary
     ;
 
 COLLECTED : 'collected' ;
 NUMBER : [0-9]+ ('.' [0-9]+)? ;
 IDENT : [a-zA-Z_] [a-zA-Z_0-9]* ;
+// A pattern variable of a rule: '@x' matches any subterm (guards narrow it).
+PATTERN_VAR : '@' [a-zA-Z_] [a-zA-Z_0-9]* ;
 STRING : '"' (~["\\\r\n] | '\\' ["\\nt])* '"' ;
 UNTERMINATED_STRING : '"' (~["\\\r\n] | '\\' .)* ;
 COMMENT : '#' ~[\r\n]* -> skip ;

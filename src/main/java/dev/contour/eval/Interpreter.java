@@ -52,6 +52,24 @@ public final class Interpreter {
         this(options, BuiltinRegistry.standard());
     }
 
+    /** What rule statements borrow from this session: evaluation in scope, file lookup, the output format. */
+    private final RuleContext ruleContext = new RuleContext() {
+        @Override
+        public Value evaluate(Expr e) {
+            return eval(e);
+        }
+
+        @Override
+        public Path resolve(String file, Span span) {
+            return Interpreter.this.resolve(file, span);
+        }
+
+        @Override
+        public OutputFormat format() {
+            return options.format();
+        }
+    };
+
     public Interpreter(InterpreterOptions options, BuiltinRegistry registry) {
         this.options = options;
         this.registry = registry;
@@ -197,6 +215,19 @@ public final class Interpreter {
             }
         } else if (s instanceof Stmt.Rule r) {
             registry.ruleSink(r.span()).accept(r);
+        } else if (s instanceof Stmt.Derive d) {
+            RuleReport report = registry.ruleSink(d.span()).derive(d, ruleContext);
+            if (!options.checksOnly()) {
+                options.out().print(report.detail());
+            }
+        } else if (s instanceof Stmt.CheckByRules c) {
+            RuleReport report = registry.ruleSink(c.span()).prove(c, ruleContext);
+            if (report.holds()) {
+                passed++;
+            } else {
+                failed++;
+            }
+            options.out().print(options.checksOnly() ? report.summary() : report.detail());
         } else {
             throw new IllegalStateException("interpreter: unhandled statement " + s.getClass().getSimpleName());
         }
@@ -378,6 +409,9 @@ public final class Interpreter {
         }
         if (e instanceof Expr.Solve s) {
             return solve(s);
+        }
+        if (e instanceof Expr.PatternVariable v) {
+            throw new ContourException("pattern variables such as '@" + v.name() + "' belong in rules", v.span());
         }
         throw new IllegalStateException("interpreter: unhandled expression " + e.getClass().getSimpleName());
     }

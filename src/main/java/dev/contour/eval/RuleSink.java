@@ -1,9 +1,23 @@
 package dev.contour.eval;
 
+import dev.contour.ContourException;
 import dev.contour.lang.Stmt;
 
-/** Receives {@code rule} statements; the rewriting engine registers one in the {@link BuiltinRegistry}. */
+/**
+ * Receives {@code rule} statements and runs the statements that rewrite with them ({@code derive},
+ * {@code check ... by rules}); the rewriting engine registers one in the {@link BuiltinRegistry}.
+ */
 @FunctionalInterface
 public interface RuleSink {
     void accept(Stmt.Rule rule);
+
+    /** Runs {@code derive}: the text shows each step. */
+    default RuleReport derive(Stmt.Derive statement, RuleContext context) {
+        throw new ContourException("'derive' needs the rewriting engine, which is not in this build", statement.span());
+    }
+
+    /** Runs {@code check ... by rules}. */
+    default RuleReport prove(Stmt.CheckByRules statement, RuleContext context) {
+        throw new ContourException("'check ... by rules' needs the rewriting engine, which is not in this build", statement.span());
+    }
 }

@@ -37,6 +37,12 @@ public sealed interface Expr {
         @Override public int hashCode() { return SpanlessEquality.hash(this); }
     }
 
+    /** A pattern variable of a rule, {@code @x} (the name is kept without the {@code @}). */
+    record PatternVariable(String name, Span span) implements Expr {
+        @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
+        @Override public int hashCode() { return SpanlessEquality.hash(this); }
+    }
+
     /** A string literal (file names, labels). */
     record Text(String value, Span span) implements Expr {
         @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }

@@ -112,9 +112,33 @@ public final class ScriptParser {
             }
             String name = String.join("-", names(r.ruleName().IDENT()));
             out.add(new Stmt.Rule(name, expr(r.expr(0)), expr(r.expr(1)), guards, span));
+        } else if (c instanceof DeriveStatementContext d) {
+            out.add(new Stmt.Derive(expr(d.expr()), source(d.expr()), ruleFiles(d.usingClause()),
+                    rewriteLimits(d.withinClause()), span));
+        } else if (c instanceof CheckByRulesStatementContext k) {
+            out.add(new Stmt.CheckByRules(expr(k.expr(0)), expr(k.expr(1)), source(k.expr(0)) + " == " + source(k.expr(1)),
+                    ruleFiles(k.usingClause()), rewriteLimits(k.withinClause()), span));
         } else if (!(c instanceof EmptyStatementContext)) {
             throw unhandled(c);
         }
+    }
+
+    private static List<String> ruleFiles(UsingClauseContext u) {
+        return u == null ? List.of() : u.STRING().stream().map(t -> unquote(t.getSymbol())).toList();
+    }
+
+    private List<Stmt.RewriteLimit> rewriteLimits(WithinClauseContext w) {
+        List<Stmt.RewriteLimit> out = new ArrayList<>();
+        if (w != null) {
+            for (RewriteLimitContext l : w.rewriteLimit()) {
+                Expr.Number n = number(l.NUMBER().getText(), span(l));
+                if (!n.denominator().equals(BigInteger.ONE) || n.numerator().bitLength() > 62) {
+                    throw new ContourException("a limit is a whole number", span(l.NUMBER().getSymbol()));
+                }
+                out.add(new Stmt.RewriteLimit(n.numerator().longValue(), l.IDENT().getText(), span(l)));
+            }
+        }
+        return out;
     }
 
     private Stmt.ShowOption showOption(ShowOptionContext o) {
@@ -260,6 +284,9 @@ public final class ScriptParser {
         }
         if (c instanceof NamePrimaryContext n) {
             return new Expr.Name(n.IDENT().getText(), span);
+        }
+        if (c instanceof PatternPrimaryContext v) {
+            return new Expr.PatternVariable(v.PATTERN_VAR().getText().substring(1), span);
         }
         if (c instanceof StringPrimaryContext s) {
             return new Expr.Text(unquote(s.STRING().getSymbol()), span);

@@ -83,4 +83,34 @@ public sealed interface Stmt {
         @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
         @Override public int hashCode() { return SpanlessEquality.hash(this); }
     }
+
+    /** One limit of a rewriting run as written, {@code 500 steps}; the engine checks the unit. */
+    record RewriteLimit(long amount, String unit, Span span) {
+        @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
+        @Override public int hashCode() { return SpanlessEquality.hash(this); }
+    }
+
+    /**
+     * {@code derive value using "gamma.ctr" within 500 steps}: shows a rewriting derivation step by
+     * step; no files means the rules the session has loaded.
+     */
+    record Derive(Expr value, String label, List<String> ruleFiles, List<RewriteLimit> limits, Span span) implements Stmt {
+        public Derive {
+            ruleFiles = List.copyOf(ruleFiles);
+            limits = List.copyOf(limits);
+        }
+        @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
+        @Override public int hashCode() { return SpanlessEquality.hash(this); }
+    }
+
+    /** {@code check left == right by rules using ...}: a check decided by rewriting both sides, printed as a proof. */
+    record CheckByRules(Expr left, Expr right, String label, List<String> ruleFiles, List<RewriteLimit> limits, Span span)
+            implements Stmt {
+        public CheckByRules {
+            ruleFiles = List.copyOf(ruleFiles);
+            limits = List.copyOf(limits);
+        }
+        @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
+        @Override public int hashCode() { return SpanlessEquality.hash(this); }
+    }
 }

@@ -42,7 +42,15 @@ public final class Terms {
 
     /** The normal form of {@code t}; a {@link Term.Leaf} exactly when the value is rational. */
     public static Term normalize(Term t) {
-        return toTerm(reduceGammas(normalForm(t)));
+        return toTerm(reduceGammas(normalForm(t, true)));
+    }
+
+    /**
+     * The same sum-of-monomials form without the built-in reductions: calls stay exactly as written
+     * (with expanded arguments), so a rewrite rule decides what happens to each of them.
+     */
+    public static Term expand(Term t) {
+        return toTerm(normalForm(t, false));
     }
 
     /** True when the (normalised) term is a rational value. */
@@ -142,29 +150,31 @@ public final class Terms {
 
     private static final Key RATIONAL = new Key(Map.of());
 
-    private static Map<Key, Expression> normalForm(Term t) {
+    private static Map<Key, Expression> normalForm(Term t, boolean reduce) {
         if (t instanceof Term.Leaf l) {
             return single(RATIONAL, l.value());
         }
         if (t instanceof Term.Sum s) {
             Map<Key, Expression> acc = new HashMap<>();
             for (Term x : s.terms()) {
-                addInto(acc, normalForm(x));
+                addInto(acc, normalForm(x, reduce));
             }
             return acc;
         }
         if (t instanceof Term.Product p) {
             Map<Key, Expression> acc = single(RATIONAL, Expression.ONE);
             for (Term x : p.factors()) {
-                acc = multiply(acc, normalForm(x));
+                acc = multiply(acc, normalForm(x, reduce));
             }
             return acc;
         }
         if (t instanceof Term.Power w) {
-            return power(reduceGammas(normalForm(w.base())), w.exponent());
+            Map<Key, Expression> base = normalForm(w.base(), reduce);
+            return power(reduce ? reduceGammas(base) : base, w.exponent());
         }
         if (t instanceof Term.Apply a) {
-            return apply(a);
+            return reduce ? apply(a) : single(new Key(Map.of(new Term.Apply(a.function(),
+                    a.arguments().stream().map(Terms::expand).toList()), 1)), Expression.ONE);
         }
         throw new IllegalStateException("unhandled term kind " + t.getClass().getSimpleName());
     }
@@ -210,13 +220,13 @@ public final class Terms {
             if (length != null) {
                 return single(RATIONAL, pochhammer(x.value(), length));
             }
-            return normalForm(gammaRatio(x.value().add(n.value()), x.value()));
+            return normalForm(gammaRatio(x.value().add(n.value()), x.value()), true);
         } else if (f.equals(FACTORIAL) && args.size() == 1 && args.get(0) instanceof Term.Leaf x) {
             Integer n = integerValue(x.value());
             if (n != null) {
                 return constant(Rational.of(factorial(n)));
             }
-            return normalForm(gamma(x.value().add(Expression.ONE)));
+            return normalForm(gamma(x.value().add(Expression.ONE)), true);
         } else if (f.equals(BINOM) && args.size() == 2 && args.get(0) instanceof Term.Leaf x
                 && args.get(1) instanceof Term.Leaf k) {
             Integer kk = integerValue(k.value());
@@ -226,7 +236,7 @@ public final class Terms {
             Expression n1 = x.value().add(Expression.ONE);
             return normalForm(new Term.Product(List.of(gamma(n1),
                     new Term.Power(gamma(k.value().add(Expression.ONE)), -1),
-                    new Term.Power(gamma(n1.subtract(k.value())), -1))));
+                    new Term.Power(gamma(n1.subtract(k.value())), -1))), true);
         }
         return single(new Key(Map.of(new Term.Apply(f, args), 1)), Expression.ONE);
     }
