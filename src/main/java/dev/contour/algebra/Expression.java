@@ -1,13 +1,19 @@
 package dev.contour.algebra;
 
+import dev.contour.ContourException;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.SortedMap;
 import java.util.SortedSet;
+import java.util.TreeMap;
+import java.util.TreeSet;
 
 /**
  * The exact value of the language: a Laurent polynomial in <em>collected</em> variables whose
- * coefficients are canonical rational functions in the other (<em>inner</em>) variables
- * (API CONTRACT skeleton).
+ * coefficients are canonical rational functions in the other (<em>inner</em>) variables.
  *
  * <p>Why: Mellin amplitudes are polynomials in the R-symmetry cross ratios sigma, tau (and linear in
  * unknown ansatz coefficients a[i,j,k]) whose coefficients are rational functions of s, t with small
@@ -19,55 +25,430 @@ import java.util.SortedSet;
  * the other, the inner occurrence is expanded as a polynomial in it (a ContourException if it sits
  * in a denominator). Division by an expression with collected variables is allowed only when it is a
  * single monomial (Laurent). No zero coefficients are stored; equal values have identical
- * representations.
+ * representations. Terms are ordered by {@link Monomial#compareTo}.
  */
 public final class Expression {
-    public static final Expression ZERO = null;
-    public static final Expression ONE = null;
+    public static final Expression ZERO = new Expression(new TreeMap<>());
+    public static final Expression ONE = of(RationalFunction.ONE);
 
-    private Expression() { }
+    /** Non-zero canonical coefficients whose variables are disjoint from the collected names. */
+    private final TreeMap<Monomial, RationalFunction> terms;
 
-    public static Expression constant(Rational c) { throw Rational.todo(); }
-    public static Expression constant(long c) { throw Rational.todo(); }
-    public static Expression of(RationalFunction f) { throw Rational.todo(); }
+    private Expression(TreeMap<Monomial, RationalFunction> terms) {
+        this.terms = terms;
+    }
+
+    public static Expression constant(Rational c) {
+        return of(RationalFunction.constant(c));
+    }
+
+    public static Expression constant(long c) {
+        return constant(Rational.of(c));
+    }
+
+    public static Expression of(RationalFunction f) {
+        TreeMap<Monomial, RationalFunction> m = new TreeMap<>();
+        if (!f.isZero()) {
+            m.put(Monomial.ONE, f);
+        }
+        return new Expression(m);
+    }
+
     /** An inner variable: may appear in denominators. */
-    public static Expression variable(String name) { throw Rational.todo(); }
-    /** A collected variable: kept as a Laurent monomial (sigma, tau, unknowns). */
-    public static Expression collectedVariable(String name) { throw Rational.todo(); }
-    /** The sum of coefficient * monomial over the map's entries (zero coefficients dropped). */
-    public static Expression of(Map<Monomial, RationalFunction> terms) { throw Rational.todo(); }
+    public static Expression variable(String name) {
+        return of(RationalFunction.variable(name));
+    }
 
-    public Expression add(Expression o) { throw Rational.todo(); }
-    public Expression subtract(Expression o) { throw Rational.todo(); }
-    public Expression multiply(Expression o) { throw Rational.todo(); }
-    public Expression multiply(RationalFunction c) { throw Rational.todo(); }
-    public Expression negate() { throw Rational.todo(); }
+    /** A collected variable: kept as a Laurent monomial (sigma, tau, unknowns). */
+    public static Expression collectedVariable(String name) {
+        TreeMap<Monomial, RationalFunction> m = new TreeMap<>();
+        m.put(Monomial.of(name, 1), RationalFunction.ONE);
+        return new Expression(m);
+    }
+
+    /** The sum of coefficient * monomial over the map's entries (zero coefficients dropped). */
+    public static Expression of(Map<Monomial, RationalFunction> terms) {
+        TreeMap<Monomial, RationalFunction> m = new TreeMap<>();
+        for (Map.Entry<Monomial, RationalFunction> e : terms.entrySet()) {
+            if (!e.getValue().isZero()) {
+                m.put(e.getKey(), e.getValue());
+            }
+        }
+        return normalised(m);
+    }
+
+    /** Makes the coefficients free of collected names by expanding them (the one conflict rule). */
+    private static Expression normalised(TreeMap<Monomial, RationalFunction> m) {
+        TreeSet<String> collected = new TreeSet<>();
+        for (Monomial k : m.keySet()) {
+            Collections.addAll(collected, k.names());
+        }
+        return new Expression(m).expandedFor(collected);
+    }
+
+    /** This value with every occurrence of the given names inside coefficients moved into monomials. */
+    private Expression expandedFor(Set<String> names) {
+        if (names.isEmpty()) {
+            return this;
+        }
+        boolean conflict = false;
+        for (RationalFunction c : terms.values()) {
+            if (intersects(c.variables(), names)) {
+                conflict = true;
+                break;
+            }
+        }
+        if (!conflict) {
+            return this;
+        }
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            RationalFunction c = t.getValue();
+            List<String> hit = c.variables().stream().filter(names::contains).toList();
+            if (hit.isEmpty()) {
+                accumulate(out, t.getKey(), c);
+                continue;
+            }
+            for (LinearFactors.Factor f : c.denominatorFactors()) {
+                for (String v : hit) {
+                    if (f.base().variables().contains(v)) {
+                        throw new ContourException("variable '" + v + "' is collected but occurs in a denominator: " + c);
+                    }
+                }
+            }
+            for (Map.Entry<List<Integer>, Polynomial> part : c.numerator().coefficients(hit).entrySet()) {
+                Map<String, Integer> ex = new HashMap<>();
+                for (int i = 0; i < hit.size(); i++) {
+                    ex.put(hit.get(i), part.getKey().get(i));
+                }
+                accumulate(out, t.getKey().multiply(Monomial.of(ex)), c.withNumerator(part.getValue()));
+            }
+        }
+        return new Expression(out);
+    }
+
+    private static boolean intersects(Set<String> a, Set<String> b) {
+        for (String s : a) {
+            if (b.contains(s)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    private static void accumulate(TreeMap<Monomial, RationalFunction> m, Monomial k, RationalFunction c) {
+        if (c.isZero()) {
+            return;
+        }
+        RationalFunction old = m.get(k);
+        if (old == null) {
+            m.put(k, c);
+            return;
+        }
+        RationalFunction s = old.add(c);
+        if (s.isZero()) {
+            m.remove(k);
+        } else {
+            m.put(k, s);
+        }
+    }
+
+    private Set<String> collectedUnion(Expression o) {
+        TreeSet<String> s = new TreeSet<>(collectedVariables());
+        s.addAll(o.collectedVariables());
+        return s;
+    }
+
+    // ---------------------------------------------------------------- arithmetic
+
+    public Expression add(Expression o) {
+        if (o.isZero()) {
+            return this;
+        }
+        if (isZero()) {
+            return o;
+        }
+        Set<String> names = collectedUnion(o);
+        Expression a = expandedFor(names);
+        Expression b = o.expandedFor(names);
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>(a.terms);
+        for (Map.Entry<Monomial, RationalFunction> t : b.terms.entrySet()) {
+            accumulate(out, t.getKey(), t.getValue());
+        }
+        return new Expression(out);
+    }
+
+    public Expression subtract(Expression o) {
+        return add(o.negate());
+    }
+
+    public Expression multiply(Expression o) {
+        if (isZero() || o.isZero()) {
+            return ZERO;
+        }
+        Set<String> names = collectedUnion(o);
+        Expression a = expandedFor(names);
+        Expression b = o.expandedFor(names);
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+        for (Map.Entry<Monomial, RationalFunction> x : a.terms.entrySet()) {
+            for (Map.Entry<Monomial, RationalFunction> y : b.terms.entrySet()) {
+                accumulate(out, x.getKey().multiply(y.getKey()), x.getValue().multiply(y.getValue()));
+            }
+        }
+        return new Expression(out);
+    }
+
+    public Expression multiply(RationalFunction c) {
+        return multiply(of(c));
+    }
+
+    public Expression negate() {
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            out.put(t.getKey(), t.getValue().negate());
+        }
+        return new Expression(out);
+    }
+
     /** Division; the divisor must be free of collected variables or a single monomial. */
-    public Expression divide(Expression o) { throw Rational.todo(); }
-    public Expression pow(int exponent) { throw Rational.todo(); }
+    public Expression divide(Expression o) {
+        if (o.isZero()) {
+            throw new ContourException("division by zero: (" + this + ") / 0");
+        }
+        Set<String> names = collectedUnion(o);
+        return expandedFor(names).multiply(o.expandedFor(names).inverseOfSingleTerm());
+    }
+
+    private Expression inverseOfSingleTerm() {
+        if (terms.size() != 1) {
+            throw new ContourException("cannot divide by a sum of several monomials in collected variables: " + this);
+        }
+        Map.Entry<Monomial, RationalFunction> t = terms.firstEntry();
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+        out.put(t.getKey().inverse(), t.getValue().inverse());
+        return new Expression(out);
+    }
+
+    public Expression pow(int exponent) {
+        if (exponent < 0) {
+            if (isZero()) {
+                throw new ContourException("division by zero: 0^" + exponent);
+            }
+            return inverseOfSingleTerm().pow(-exponent);
+        }
+        if (terms.size() == 1) {
+            Map.Entry<Monomial, RationalFunction> t = terms.firstEntry();
+            TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+            out.put(t.getKey().pow(exponent), t.getValue().pow(exponent));
+            return new Expression(out);
+        }
+        Expression result = ONE;
+        Expression base = this;
+        int e = exponent;
+        while (e > 0) {
+            if ((e & 1) != 0) {
+                result = result.multiply(base);
+            }
+            e >>= 1;
+            if (e > 0) {
+                base = base.multiply(base);
+            }
+        }
+        return result;
+    }
+
+    // ---------------------------------------------------------------- substitution
 
     /** Simultaneous substitution for inner and collected variables. */
-    public Expression substitute(Map<String, Expression> values) { throw Rational.todo(); }
+    public Expression substitute(Map<String, Expression> values) {
+        Expression result = ZERO;
+        Map<String, Map<Integer, Expression>> powers = new HashMap<>();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Expression term = substituteCoefficient(t.getValue(), values);
+            for (Map.Entry<String, Integer> v : t.getKey().exponents().entrySet()) {
+                Expression base = values.get(v.getKey());
+                if (base == null) {
+                    base = collectedVariable(v.getKey());
+                }
+                final Expression b = base;
+                term = term.multiply(powers.computeIfAbsent(v.getKey(), k -> new HashMap<>())
+                        .computeIfAbsent(v.getValue(), b::pow));
+            }
+            result = result.add(term);
+        }
+        return result;
+    }
+
+    private static Expression substituteCoefficient(RationalFunction c, Map<String, Expression> values) {
+        Map<String, RationalFunction> rational = new HashMap<>();
+        boolean allRational = true;
+        for (String v : c.variables()) {
+            Expression val = values.get(v);
+            if (val != null) {
+                if (val.isRational()) {
+                    rational.put(v, val.asRationalFunction());
+                } else {
+                    allRational = false;
+                }
+            }
+        }
+        if (allRational) {
+            return of(c.substitute(rational));
+        }
+        Expression result = polynomialWith(c.numerator(), values);
+        for (LinearFactors.Factor f : c.denominatorFactors()) {
+            result = result.divide(polynomialWith(f.base(), values).pow(f.multiplicity()));
+        }
+        return result;
+    }
+
+    private static Expression polynomialWith(Polynomial p, Map<String, Expression> values) {
+        Expression result = ZERO;
+        for (Polynomial.Term t : p.terms()) {
+            Expression term = constant(t.coefficient());
+            for (Map.Entry<String, Integer> v : t.exponents().entrySet()) {
+                Expression base = values.get(v.getKey());
+                term = term.multiply((base == null ? variable(v.getKey()) : base).pow(v.getValue()));
+            }
+            result = result.add(term);
+        }
+        return result;
+    }
+
     /** Linear substitution of inner variables (shifts, swaps, t -> 4p - s - t): the fast path. */
-    public Expression substituteLinear(Map<String, Polynomial> values) { throw Rational.todo(); }
-    /** Inner variables replaced by numbers; collected structure kept. */
-    public Expression evaluatePartially(Map<String, Rational> point) { throw Rational.todo(); }
+    public Expression substituteLinear(Map<String, Polynomial> values) {
+        Set<String> collected = collectedVariables();
+        if (intersects(values.keySet(), collected)) {
+            Map<String, Expression> general = new HashMap<>();
+            for (Map.Entry<String, Polynomial> e : values.entrySet()) {
+                general.put(e.getKey(), of(RationalFunction.of(e.getValue())));
+            }
+            return substitute(general);
+        }
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            accumulate(out, t.getKey(), t.getValue().substituteLinear(values));
+        }
+        return normalised(out);
+    }
+
+    /**
+     * Inner variables replaced by numbers; collected structure kept. A collected variable named in
+     * the point is replaced too (its power is multiplied into the coefficient).
+     */
+    public Expression evaluatePartially(Map<String, Rational> point) {
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Rational factor = Rational.ONE;
+            Map<String, Integer> rest = new HashMap<>();
+            for (Map.Entry<String, Integer> v : t.getKey().exponents().entrySet()) {
+                Rational x = point.get(v.getKey());
+                if (x == null) {
+                    rest.put(v.getKey(), v.getValue());
+                } else {
+                    factor = factor.multiply(x.pow(v.getValue()));
+                }
+            }
+            accumulate(out, Monomial.of(rest), t.getValue().evaluatePartially(point).multiply(factor));
+        }
+        return new Expression(out);
+    }
+
+    // ---------------------------------------------------------------- structure
 
     /** Terms in canonical order: monomial in collected variables to its coefficient. */
-    public SortedMap<Monomial, RationalFunction> terms() { throw Rational.todo(); }
-    public RationalFunction coefficient(Monomial m) { throw Rational.todo(); }
-    public SortedSet<String> collectedVariables() { throw Rational.todo(); }
-    public SortedSet<String> innerVariables() { throw Rational.todo(); }
-    public boolean isZero() { throw Rational.todo(); }
-    /** True when no collected variable occurs. */
-    public boolean isRational() { throw Rational.todo(); }
-    /** The value as one rational function; ContourException if a collected variable occurs. */
-    public RationalFunction asRationalFunction() { throw Rational.todo(); }
-    public boolean isConstant() { throw Rational.todo(); }
-    public Rational constantValue() { throw Rational.todo(); }
-    public boolean isCanonical() { throw Rational.todo(); }
+    public SortedMap<Monomial, RationalFunction> terms() {
+        return Collections.unmodifiableSortedMap(terms);
+    }
 
-    @Override public boolean equals(Object o) { throw Rational.todo(); }
-    @Override public int hashCode() { throw Rational.todo(); }
-    @Override public String toString() { throw Rational.todo(); }
+    public RationalFunction coefficient(Monomial m) {
+        return terms.getOrDefault(m, RationalFunction.ZERO);
+    }
+
+    public SortedSet<String> collectedVariables() {
+        TreeSet<String> s = new TreeSet<>();
+        for (Monomial m : terms.keySet()) {
+            Collections.addAll(s, m.names());
+        }
+        return Collections.unmodifiableSortedSet(s);
+    }
+
+    public SortedSet<String> innerVariables() {
+        TreeSet<String> s = new TreeSet<>();
+        for (RationalFunction c : terms.values()) {
+            s.addAll(c.variables());
+        }
+        return Collections.unmodifiableSortedSet(s);
+    }
+
+    public boolean isZero() {
+        return terms.isEmpty();
+    }
+
+    /** True when no collected variable occurs. */
+    public boolean isRational() {
+        return terms.isEmpty() || terms.size() == 1 && terms.firstKey().isOne();
+    }
+
+    /** The value as one rational function; ContourException if a collected variable occurs. */
+    public RationalFunction asRationalFunction() {
+        if (!isRational()) {
+            throw new ContourException("expected a value free of collected variables, got " + this);
+        }
+        return isZero() ? RationalFunction.ZERO : terms.firstEntry().getValue();
+    }
+
+    public boolean isConstant() {
+        return isRational() && asRationalFunction().isConstant();
+    }
+
+    public Rational constantValue() {
+        if (!isConstant()) {
+            throw new ContourException("not a constant: " + this);
+        }
+        return asRationalFunction().constantValue();
+    }
+
+    public boolean isCanonical() {
+        Set<String> collected = collectedVariables();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            RationalFunction c = t.getValue();
+            if (c.isZero() || !c.isCanonical() || intersects(c.variables(), collected)) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        return this == o || o instanceof Expression e && terms.equals(e.terms);
+    }
+
+    @Override
+    public int hashCode() {
+        return terms.hashCode();
+    }
+
+    /** A debugging form such as {@code (s)/((t - 1))*sigma + 2}; user-facing printing lives in print/. */
+    @Override
+    public String toString() {
+        if (terms.isEmpty()) {
+            return "0";
+        }
+        StringBuilder sb = new StringBuilder();
+        for (Map.Entry<Monomial, RationalFunction> t : terms.descendingMap().entrySet()) {
+            if (sb.length() > 0) {
+                sb.append(" + ");
+            }
+            if (t.getKey().isOne()) {
+                sb.append('(').append(t.getValue()).append(')');
+            } else if (t.getValue().isOne()) {
+                sb.append(t.getKey());
+            } else {
+                sb.append('(').append(t.getValue()).append(")*").append(t.getKey());
+            }
+        }
+        return sb.toString();
+    }
 }

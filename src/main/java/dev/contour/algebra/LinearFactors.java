@@ -1,8 +1,28 @@
 package dev.contour.algebra;
 
+import dev.contour.ContourException;
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import java.util.Set;
 
-/** Splitting a polynomial into its factors that are linear over Q (API CONTRACT skeleton). */
+/**
+ * Splitting a polynomial into its factors that are linear over Q.
+ *
+ * <p>Method: factors free of the first variable x are factors of the content with respect to x
+ * (found by recursion on fewer variables). A factor x - r0 - sum r_i (y_i - z_i) containing x
+ * leaves a rational root on every line y = const; the roots at a random point z, at z + c_i e_i and
+ * at a check point z + d_i e_i give candidate slopes r_i, and every candidate is confirmed by exact
+ * division. Univariate rational roots are found modulo a small prime, lifted by Newton iteration
+ * and recovered by rational reconstruction, then checked exactly. Random points only steer the
+ * search: the result is verified by division and does not depend on them.
+ */
 public final class LinearFactors {
     private LinearFactors() { }
 
@@ -10,10 +30,299 @@ public final class LinearFactors {
      * p = unit * prod factor_i^multiplicity_i * cofactor, where each factor is a primitive linear
      * polynomial (total degree 1, integer coefficients, positive leading coefficient), pairwise
      * distinct, and the cofactor is primitive with no linear factor over Q.
+     * Factors are sorted by {@link Polynomial#compareTo}. The zero polynomial throws
+     * ContourException.
      */
-    public static Split split(Polynomial p) { throw Rational.todo(); }
+    public static Split split(Polynomial p) {
+        if (p.isZero()) {
+            throw new ContourException("cannot split the zero polynomial into factors");
+        }
+        if (p.isConstant()) {
+            return new Split(p.constantValue(), List.of(), Polynomial.ONE);
+        }
+        Rational unit = p.content();
+        Polynomial q = p.primitivePart();
+        List<Factor> found = new ArrayList<>();
+        Polynomial cof = findLinear(q, found);
+        Rational c = cof.content();
+        unit = unit.multiply(c);
+        cof = cof.primitivePart();
+        found.sort(Comparator.comparing(Factor::base));
+        return new Split(unit, List.copyOf(found), cof);
+    }
 
     public record Factor(Polynomial base, int multiplicity) { }
 
     public record Split(Rational unit, List<Factor> factors, Polynomial cofactor) { }
+
+    /** Appends the linear factors of q to out; returns q divided by them. */
+    private static Polynomial findLinear(Polynomial q, List<Factor> out) {
+        if (q.isConstant()) {
+            return q;
+        }
+        if (q.isLinear()) {
+            out.add(new Factor(q.primitivePart(), 1));
+            return Polynomial.constant(q.content());
+        }
+        String x = q.vars[0];
+        Polynomial cofactor = Polynomial.ONE;
+        Polynomial cont = PolynomialGcd.contentIn(q, x);
+        if (!cont.isConstant()) {
+            cofactor = findLinear(cont, out);
+            q = q.divideOrNull(cont);
+        }
+        Set<Polynomial> candidates = new LinkedHashSet<>();
+        if (q.vars.length == 1) {
+            for (Rational root : rationalRoots(q)) {
+                candidates.add(linear(x, root, Map.of(), Map.of()));
+            }
+        } else {
+            candidates = multivariateCandidates(q, x);
+        }
+        for (Polynomial l : candidates) {
+            int m = 0;
+            Polynomial r;
+            while (q.vars.length > 0 && (r = q.divideOrNull(l)) != null) {
+                q = r;
+                m++;
+            }
+            if (m > 0) {
+                out.add(new Factor(l, m));
+            }
+        }
+        return cofactor.multiply(q);
+    }
+
+    /** Primitive form of x - root - sum slope_y * (y - z_y). */
+    private static Polynomial linear(String x, Rational root, Map<String, Rational> slopes, Map<String, Rational> z) {
+        Polynomial l = Polynomial.variable(x).subtract(Polynomial.constant(root));
+        for (Map.Entry<String, Rational> s : slopes.entrySet()) {
+            Polynomial y = Polynomial.variable(s.getKey()).subtract(Polynomial.constant(z.get(s.getKey())));
+            l = l.subtract(y.multiply(s.getValue()));
+        }
+        return l.primitivePart();
+    }
+
+    private static Set<Polynomial> multivariateCandidates(Polynomial q, String x) {
+        String[] others = java.util.Arrays.copyOfRange(q.vars, 1, q.vars.length);
+        int n = others.length;
+        Polynomial[] cx = q.coefficientsIn(x);
+        Polynomial lead = cx[cx.length - 1];
+        Random rnd = new Random(0x5eed + 31L * q.hashCode());
+        for (int attempt = 0; attempt < 50; attempt++) {
+            int range = 20 + 10 * attempt;
+            Map<String, Rational> z = new HashMap<>();
+            for (String y : others) {
+                z.put(y, Rational.of(rnd.nextInt(2 * range + 1) - range));
+            }
+            long[] c = new long[n];
+            long[] d = new long[n];
+            for (int i = 0; i < n; i++) {
+                c[i] = 1 + rnd.nextInt(range);
+                do {
+                    d[i] = -range + rnd.nextInt(2 * range + 1);
+                } while (d[i] == 0 || d[i] == c[i]);
+            }
+            if (lead.evaluate(z).isZero()) {
+                continue;
+            }
+            boolean degenerate = false;
+            List<Set<Rational>> stepRoots = new ArrayList<>();
+            List<Set<Rational>> checkRoots = new ArrayList<>();
+            for (int i = 0; i < n && !degenerate; i++) {
+                Map<String, Rational> zc = new HashMap<>(z);
+                zc.put(others[i], z.get(others[i]).add(Rational.of(c[i])));
+                Map<String, Rational> zd = new HashMap<>(z);
+                zd.put(others[i], z.get(others[i]).add(Rational.of(d[i])));
+                if (lead.evaluate(zc).isZero() || lead.evaluate(zd).isZero()) {
+                    degenerate = true;
+                    break;
+                }
+                stepRoots.add(new HashSet<>(rationalRoots(q.evaluatePartially(zc))));
+                checkRoots.add(new HashSet<>(rationalRoots(q.evaluatePartially(zd))));
+            }
+            if (degenerate) {
+                continue;
+            }
+            Set<Polynomial> out = new LinkedHashSet<>();
+            for (Rational alpha : rationalRoots(q.evaluatePartially(z))) {
+                List<List<Rational>> slopes = new ArrayList<>();
+                for (int i = 0; i < n; i++) {
+                    List<Rational> si = new ArrayList<>();
+                    for (Rational beta : stepRoots.get(i)) {
+                        Rational r = beta.subtract(alpha).divide(Rational.of(c[i]));
+                        if (checkRoots.get(i).contains(alpha.add(r.multiply(Rational.of(d[i]))))) {
+                            si.add(r);
+                        }
+                    }
+                    slopes.add(si);
+                }
+                combine(x, alpha, others, z, slopes, 0, new HashMap<>(), out);
+            }
+            return out;
+        }
+        // Unreachable in practice: the leading coefficient is a non-zero polynomial.
+        throw new IllegalStateException("no non-degenerate evaluation point found for " + q);
+    }
+
+    private static void combine(String x, Rational alpha, String[] others, Map<String, Rational> z,
+            List<List<Rational>> slopes, int i, Map<String, Rational> chosen, Set<Polynomial> out) {
+        if (i == others.length) {
+            out.add(linear(x, alpha, chosen, z));
+            return;
+        }
+        for (Rational r : slopes.get(i)) {
+            chosen.put(others[i], r);
+            combine(x, alpha, others, z, slopes, i + 1, chosen, out);
+        }
+        chosen.remove(others[i]);
+    }
+
+    /** The distinct rational roots of a univariate polynomial (any variable name); none for constants. */
+    static List<Rational> rationalRoots(Polynomial f) {
+        List<Rational> roots = new ArrayList<>();
+        if (f.isConstant()) {
+            return roots;
+        }
+        String x = f.vars[0];
+        Polynomial[] c = f.coefficientsIn(x);
+        int low = 0;
+        while (c[low].isZero()) {
+            low++;
+        }
+        if (low > 0) {
+            roots.add(Rational.ZERO);
+            Polynomial[] shifted = java.util.Arrays.copyOfRange(c, low, c.length);
+            f = Polynomial.fromCoefficientsIn(x, shifted);
+            if (f.isConstant()) {
+                return roots;
+            }
+        }
+        if (f.degree(x) > 1) {
+            Polynomial g = PolynomialGcd.gcd(f, f.derivative(x));
+            if (!g.isConstant()) {
+                f = f.divideOrNull(g);
+            }
+        }
+        f = f.primitivePart();
+        c = f.coefficientsIn(x);
+        int deg = c.length - 1;
+        BigInteger[] a = new BigInteger[deg + 1];
+        for (int k = 0; k <= deg; k++) {
+            a[k] = c[k].constantValue().numerator();
+        }
+        if (deg == 1) {
+            roots.add(Rational.of(a[0].negate(), a[1]));
+            return roots;
+        }
+        BigInteger bound = a[deg].abs().max(a[0].abs());
+        BigInteger need = bound.multiply(bound).shiftLeft(1);
+        long prime = choosePrime(a);
+        BigInteger bp = BigInteger.valueOf(prime);
+        long[] am = new long[deg + 1];
+        for (int k = 0; k <= deg; k++) {
+            am[k] = a[k].mod(bp).longValue();
+        }
+        for (long r = 0; r < prime; r++) {
+            if (evalMod(am, r, prime) != 0) {
+                continue;
+            }
+            BigInteger m = bp;
+            BigInteger root = BigInteger.valueOf(r);
+            while (m.compareTo(need) <= 0) {
+                m = m.multiply(m);
+                BigInteger fr = horner(a, root).mod(m);
+                BigInteger dfr = hornerDerivative(a, root).mod(m);
+                root = root.subtract(fr.multiply(dfr.modInverse(m))).mod(m);
+            }
+            Rational cand = reconstruct(root, m);
+            if (cand != null && isRoot(a, cand)) {
+                roots.add(cand);
+            }
+        }
+        return roots;
+    }
+
+    /** A prime not dividing the leading coefficient, modulo which f stays square-free. */
+    private static long choosePrime(BigInteger[] a) {
+        int deg = a.length - 1;
+        BigInteger p = BigInteger.valueOf(Math.max(1009, 4L * deg + 1));
+        while (true) {
+            p = p.nextProbablePrime();
+            long prime = p.longValue();
+            if (a[deg].mod(p).signum() == 0) {
+                continue;
+            }
+            long[] f = new long[deg + 1];
+            long[] df = new long[deg];
+            for (int k = 0; k <= deg; k++) {
+                f[k] = a[k].mod(p).longValue();
+                if (k > 0) {
+                    df[k - 1] = f[k] * k % prime;
+                }
+            }
+            if (ModularPoly.degree(ModularPoly.gcd(f, df, prime)) == 0) {
+                return prime;
+            }
+        }
+    }
+
+    private static long evalMod(long[] a, long x, long p) {
+        long v = 0;
+        for (int k = a.length - 1; k >= 0; k--) {
+            v = (v * x + a[k]) % p;
+        }
+        return v;
+    }
+
+    private static BigInteger horner(BigInteger[] a, BigInteger x) {
+        BigInteger v = BigInteger.ZERO;
+        for (int k = a.length - 1; k >= 0; k--) {
+            v = v.multiply(x).add(a[k]);
+        }
+        return v;
+    }
+
+    private static BigInteger hornerDerivative(BigInteger[] a, BigInteger x) {
+        BigInteger v = BigInteger.ZERO;
+        for (int k = a.length - 1; k >= 1; k--) {
+            v = v.multiply(x).add(a[k].multiply(BigInteger.valueOf(k)));
+        }
+        return v;
+    }
+
+    /** Exact test: sum a_k u^k v^(n-k) == 0. */
+    private static boolean isRoot(BigInteger[] a, Rational r) {
+        BigInteger u = r.numerator();
+        BigInteger v = r.denominator();
+        BigInteger s = BigInteger.ZERO;
+        BigInteger vp = BigInteger.ONE;
+        for (int k = a.length - 1; k >= 0; k--) {
+            s = s.multiply(u).add(a[k].multiply(vp));
+            vp = vp.multiply(v);
+        }
+        // Horner with homogenising powers: s = sum a_k u^k v^(n-k) * v^0 after the loop.
+        return s.signum() == 0;
+    }
+
+    /** u/v with |u|, |v| <= sqrt(m/2) and u = r v mod m, or null. */
+    static Rational reconstruct(BigInteger r, BigInteger m) {
+        BigInteger bound = m.shiftRight(1).sqrt();
+        BigInteger r0 = m;
+        BigInteger r1 = r.mod(m);
+        BigInteger s0 = BigInteger.ZERO;
+        BigInteger s1 = BigInteger.ONE;
+        while (r1.compareTo(bound) > 0) {
+            BigInteger[] qr = r0.divideAndRemainder(r1);
+            r0 = r1;
+            r1 = qr[1];
+            BigInteger s2 = s0.subtract(qr[0].multiply(s1));
+            s0 = s1;
+            s1 = s2;
+        }
+        if (s1.signum() == 0 || s1.abs().compareTo(bound) > 0 || !r1.gcd(s1).equals(BigInteger.ONE)) {
+            return null;
+        }
+        return Rational.of(r1, s1);
+    }
 }

@@ -1,74 +1,831 @@
 package dev.contour.algebra;
 
+import dev.contour.ContourException;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.SortedSet;
+import java.util.TreeMap;
+import java.util.TreeSet;
 
 /**
  * A sparse multivariate polynomial over Q in named variables, in a fixed monomial order that does
  * not depend on the order in which variables were first seen (so printed output is reproducible).
  *
- * <p>API CONTRACT (skeleton). Immutable; the zero polynomial has no terms.
+ * <p>Monomial order: graded lexicographic with variables ranked by name ({@link String#compareTo}).
+ * A monomial is larger when its total degree is larger; on equal total degree, the exponents are
+ * compared variable by variable in name order and the larger exponent wins. Terms are stored
+ * leading (largest) term first. Only variables that occur with a positive exponent are recorded,
+ * and no zero coefficient is stored, so equal polynomials have identical representations.
+ * Immutable.
  */
-public final class Polynomial {
-    public static final Polynomial ZERO = null;
-    public static final Polynomial ONE = null;
+public final class Polynomial implements Comparable<Polynomial> {
+    private static final String[] NO_VARS = new String[0];
+    private static final int[][] NO_TERMS = new int[0][];
 
-    private Polynomial() { }
+    public static final Polynomial ZERO = new Polynomial(NO_VARS, NO_TERMS, new Rational[0]);
+    public static final Polynomial ONE = constant(Rational.ONE);
 
-    public static Polynomial constant(Rational c) { throw Rational.todo(); }
-    public static Polynomial constant(long c) { throw Rational.todo(); }
-    public static Polynomial variable(String name) { throw Rational.todo(); }
+    /** Sorted by name; each occurs in some term. */
+    final String[] vars;
+    /** Per term, exponents aligned with {@link #vars}; terms in descending monomial order. */
+    final int[][] exps;
+    /** Non-zero coefficients aligned with {@link #exps}. */
+    final Rational[] coeffs;
+    private int hash;
+
+    Polynomial(String[] vars, int[][] exps, Rational[] coeffs) {
+        this.vars = vars;
+        this.exps = exps;
+        this.coeffs = coeffs;
+    }
+
+    public static Polynomial constant(Rational c) {
+        return c.isZero() ? ZERO : new Polynomial(NO_VARS, new int[][] {new int[0]}, new Rational[] {c});
+    }
+
+    public static Polynomial constant(long c) {
+        return constant(Rational.of(c));
+    }
+
+    public static Polynomial variable(String name) {
+        return new Polynomial(new String[] {name}, new int[][] {{1}}, new Rational[] {Rational.ONE});
+    }
+
     /** c * prod vars^exps; exponents non-negative. */
-    public static Polynomial monomial(Rational c, Map<String, Integer> exponents) { throw Rational.todo(); }
+    public static Polynomial monomial(Rational c, Map<String, Integer> exponents) {
+        if (c.isZero()) {
+            return ZERO;
+        }
+        TreeMap<String, Integer> sorted = new TreeMap<>();
+        for (Map.Entry<String, Integer> e : exponents.entrySet()) {
+            if (e.getValue() < 0) {
+                throw new ContourException("negative exponent in a polynomial monomial: " + e.getKey() + "^" + e.getValue());
+            }
+            if (e.getValue() > 0) {
+                sorted.put(e.getKey(), e.getValue());
+            }
+        }
+        String[] v = sorted.keySet().toArray(NO_VARS);
+        int[] ex = new int[v.length];
+        for (int i = 0; i < v.length; i++) {
+            ex[i] = sorted.get(v[i]);
+        }
+        return new Polynomial(v, new int[][] {ex}, new Rational[] {c});
+    }
 
-    public Polynomial add(Polynomial o) { throw Rational.todo(); }
-    public Polynomial subtract(Polynomial o) { throw Rational.todo(); }
-    public Polynomial multiply(Polynomial o) { throw Rational.todo(); }
-    public Polynomial multiply(Rational c) { throw Rational.todo(); }
-    public Polynomial negate() { throw Rational.todo(); }
-    public Polynomial pow(int exponent) { throw Rational.todo(); }
+    // ---------------------------------------------------------------- order and construction
+
+    /** Graded lexicographic comparison of two exponent vectors over the same variables. */
+    static int compareExponents(int[] a, int[] b) {
+        int da = 0;
+        int db = 0;
+        for (int i = 0; i < a.length; i++) {
+            da += a[i];
+            db += b[i];
+        }
+        if (da != db) {
+            return Integer.compare(da, db);
+        }
+        for (int i = 0; i < a.length; i++) {
+            if (a[i] != b[i]) {
+                return Integer.compare(a[i], b[i]);
+            }
+        }
+        return 0;
+    }
+
+    /** Hashable wrapper of an exponent vector for accumulation. */
+    record Key(int[] e) {
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Key k && Arrays.equals(e, k.e);
+        }
+
+        @Override
+        public int hashCode() {
+            return Arrays.hashCode(e);
+        }
+    }
+
+    /** Canonical polynomial from accumulated terms over {@code vars} (zeros dropped, unused variables removed, sorted). */
+    static Polynomial fromMap(String[] vars, Map<Key, Rational> terms) {
+        int n = 0;
+        int[][] ex = new int[terms.size()][];
+        Rational[] co = new Rational[terms.size()];
+        for (Map.Entry<Key, Rational> t : terms.entrySet()) {
+            if (!t.getValue().isZero()) {
+                ex[n] = t.getKey().e;
+                co[n] = t.getValue();
+                n++;
+            }
+        }
+        return fromArrays(vars, Arrays.copyOf(ex, n), Arrays.copyOf(co, n), false);
+    }
+
+    /**
+     * Canonical polynomial from distinct terms with non-zero coefficients; sorts unless told they
+     * are sorted, and drops variables that no longer occur.
+     */
+    static Polynomial fromArrays(String[] vars, int[][] ex, Rational[] co, boolean sorted) {
+        int n = ex.length;
+        if (n == 0) {
+            return ZERO;
+        }
+        if (!sorted && n > 1) {
+            Integer[] idx = new Integer[n];
+            for (int i = 0; i < n; i++) {
+                idx[i] = i;
+            }
+            final int[][] fe = ex;
+            Arrays.sort(idx, (i, j) -> compareExponents(fe[j], fe[i]));
+            int[][] ex2 = new int[n][];
+            Rational[] co2 = new Rational[n];
+            for (int i = 0; i < n; i++) {
+                ex2[i] = ex[idx[i]];
+                co2[i] = co[idx[i]];
+            }
+            ex = ex2;
+            co = co2;
+        }
+        boolean[] used = new boolean[vars.length];
+        int usedCount = 0;
+        for (int[] e : ex) {
+            for (int v = 0; v < vars.length; v++) {
+                if (e[v] != 0 && !used[v]) {
+                    used[v] = true;
+                    usedCount++;
+                }
+            }
+        }
+        if (usedCount == vars.length) {
+            return new Polynomial(vars, ex, co);
+        }
+        String[] nv = new String[usedCount];
+        int[] map = new int[usedCount];
+        for (int v = 0, k = 0; v < vars.length; v++) {
+            if (used[v]) {
+                nv[k] = vars[v];
+                map[k++] = v;
+            }
+        }
+        int[][] nex = new int[n][];
+        for (int i = 0; i < n; i++) {
+            int[] e = new int[usedCount];
+            for (int k = 0; k < usedCount; k++) {
+                e[k] = ex[i][map[k]];
+            }
+            nex[i] = e;
+        }
+        return new Polynomial(nv, nex, co);
+    }
+
+    /** Sorted union of two sorted variable arrays. */
+    static String[] unionVars(String[] a, String[] b) {
+        if (Arrays.equals(a, b)) {
+            return a;
+        }
+        TreeSet<String> s = new TreeSet<>(Arrays.asList(a));
+        s.addAll(Arrays.asList(b));
+        return s.toArray(NO_VARS);
+    }
+
+    /** The exponent vectors of this polynomial re-expressed over the (super)set {@code target}. */
+    int[][] expsOver(String[] target) {
+        if (target == vars || Arrays.equals(target, vars)) {
+            return exps;
+        }
+        int[] pos = new int[vars.length];
+        for (int i = 0; i < vars.length; i++) {
+            pos[i] = Arrays.binarySearch(target, vars[i]);
+        }
+        int[][] out = new int[exps.length][];
+        for (int t = 0; t < exps.length; t++) {
+            int[] e = new int[target.length];
+            for (int i = 0; i < vars.length; i++) {
+                e[pos[i]] = exps[t][i];
+            }
+            out[t] = e;
+        }
+        return out;
+    }
+
+    int indexOf(String variable) {
+        return Arrays.binarySearch(vars, variable);
+    }
+
+    // ---------------------------------------------------------------- arithmetic
+
+    public Polynomial add(Polynomial o) {
+        if (o.isZero()) {
+            return this;
+        }
+        if (isZero()) {
+            return o;
+        }
+        String[] u = unionVars(vars, o.vars);
+        int[][] a = expsOver(u);
+        int[][] b = o.expsOver(u);
+        int[][] ex = new int[a.length + b.length][];
+        Rational[] co = new Rational[a.length + b.length];
+        int i = 0;
+        int j = 0;
+        int n = 0;
+        while (i < a.length || j < b.length) {
+            int c = i == a.length ? -1 : j == b.length ? 1 : compareExponents(a[i], b[j]);
+            if (c > 0) {
+                ex[n] = a[i];
+                co[n++] = coeffs[i++];
+            } else if (c < 0) {
+                ex[n] = b[j];
+                co[n++] = o.coeffs[j++];
+            } else {
+                Rational s = coeffs[i].add(o.coeffs[j]);
+                if (!s.isZero()) {
+                    ex[n] = a[i];
+                    co[n++] = s;
+                }
+                i++;
+                j++;
+            }
+        }
+        return fromArrays(u, Arrays.copyOf(ex, n), Arrays.copyOf(co, n), true);
+    }
+
+    public Polynomial subtract(Polynomial o) {
+        return add(o.negate());
+    }
+
+    public Polynomial multiply(Polynomial o) {
+        if (isZero() || o.isZero()) {
+            return ZERO;
+        }
+        if (o.isConstant()) {
+            return multiply(o.coeffs[0]);
+        }
+        if (isConstant()) {
+            return o.multiply(coeffs[0]);
+        }
+        String[] u = unionVars(vars, o.vars);
+        int[][] a = expsOver(u);
+        int[][] b = o.expsOver(u);
+        if (a.length == 1 || b.length == 1) {
+            // A monomial factor keeps the order: no sorting or hashing needed.
+            boolean single = b.length == 1;
+            int[][] many = single ? a : b;
+            Rational[] manyC = single ? coeffs : o.coeffs;
+            int[] m = single ? b[0] : a[0];
+            Rational mc = single ? o.coeffs[0] : coeffs[0];
+            int[][] ex = new int[many.length][];
+            Rational[] co = new Rational[many.length];
+            for (int t = 0; t < many.length; t++) {
+                int[] e = new int[u.length];
+                for (int v = 0; v < u.length; v++) {
+                    e[v] = many[t][v] + m[v];
+                }
+                ex[t] = e;
+                co[t] = manyC[t].multiply(mc);
+            }
+            return new Polynomial(u, ex, co);
+        }
+        HashMap<Key, Rational> acc = new HashMap<>(a.length * b.length * 2);
+        for (int i = 0; i < a.length; i++) {
+            for (int j = 0; j < b.length; j++) {
+                int[] e = new int[u.length];
+                for (int v = 0; v < u.length; v++) {
+                    e[v] = a[i][v] + b[j][v];
+                }
+                acc.merge(new Key(e), coeffs[i].multiply(o.coeffs[j]), Rational::add);
+            }
+        }
+        return fromMap(u, acc);
+    }
+
+    public Polynomial multiply(Rational c) {
+        if (c.isZero() || isZero()) {
+            return ZERO;
+        }
+        if (c.isOne()) {
+            return this;
+        }
+        Rational[] co = new Rational[coeffs.length];
+        for (int i = 0; i < co.length; i++) {
+            co[i] = coeffs[i].multiply(c);
+        }
+        return new Polynomial(vars, exps, co);
+    }
+
+    public Polynomial negate() {
+        return multiply(Rational.MINUS_ONE);
+    }
+
+    public Polynomial pow(int exponent) {
+        if (exponent < 0) {
+            throw new ContourException("negative power of a polynomial: (" + this + ")^" + exponent);
+        }
+        Polynomial result = ONE;
+        Polynomial base = this;
+        int e = exponent;
+        while (e > 0) {
+            if ((e & 1) != 0) {
+                result = result.multiply(base);
+            }
+            e >>= 1;
+            if (e > 0) {
+                base = base.multiply(base);
+            }
+        }
+        return result;
+    }
+
     /** this / d when d divides exactly; ContourException otherwise (and for d = 0). */
-    public Polynomial divideExact(Polynomial d) { throw Rational.todo(); }
+    public Polynomial divideExact(Polynomial d) {
+        if (d.isZero()) {
+            throw new ContourException("division by zero: polynomial (" + this + ") / 0");
+        }
+        return tryDivide(d).orElseThrow(
+                () -> new ContourException("polynomial division is not exact: (" + this + ") / (" + d + ")"));
+    }
+
     /** this / d when d divides exactly, else empty. */
-    public Optional<Polynomial> tryDivide(Polynomial d) { throw Rational.todo(); }
+    public Optional<Polynomial> tryDivide(Polynomial d) {
+        if (d.isZero()) {
+            throw new ContourException("division by zero: polynomial (" + this + ") / 0");
+        }
+        return Optional.ofNullable(divideOrNull(d));
+    }
+
+    /**
+     * Exact division or null. Uses the monomial-order division algorithm: if d divides this, the
+     * leading term of every remainder is divisible by the leading term of d, and the last
+     * remainder is zero.
+     */
+    Polynomial divideOrNull(Polynomial d) {
+        if (isZero()) {
+            return ZERO;
+        }
+        if (d.isConstant()) {
+            return multiply(d.coeffs[0].inverse());
+        }
+        for (String v : d.vars) {
+            if (indexOf(v) < 0) {
+                return null;
+            }
+        }
+        for (int i = 0; i < d.vars.length; i++) {
+            if (degree(d.vars[i]) < d.degree(d.vars[i])) {
+                return null;
+            }
+        }
+        if (d.vars.length == 1 && d.exps.length == 2 && d.exps[0][0] == 1) {
+            return divideLinearUnivariateOrNull(d);
+        }
+        String[] u = vars;
+        int[][] dex = d.expsOver(u);
+        TreeMap<Key, Rational> rem = new TreeMap<>((x, y) -> compareExponents(y.e, x.e));
+        for (int i = 0; i < exps.length; i++) {
+            rem.put(new Key(exps[i]), coeffs[i]);
+        }
+        int[] dl = dex[0];
+        Rational dlc = d.coeffs[0].inverse();
+        HashMap<Key, Rational> quot = new HashMap<>();
+        while (!rem.isEmpty()) {
+            Map.Entry<Key, Rational> lt = rem.firstEntry();
+            int[] e = lt.getKey().e;
+            int[] qe = new int[u.length];
+            for (int v = 0; v < u.length; v++) {
+                qe[v] = e[v] - dl[v];
+                if (qe[v] < 0) {
+                    return null;
+                }
+            }
+            Rational qc = lt.getValue().multiply(dlc);
+            quot.put(new Key(qe), qc);
+            for (int t = 0; t < dex.length; t++) {
+                int[] me = new int[u.length];
+                for (int v = 0; v < u.length; v++) {
+                    me[v] = dex[t][v] + qe[v];
+                }
+                Key k = new Key(me);
+                Rational c = rem.getOrDefault(k, Rational.ZERO).subtract(qc.multiply(d.coeffs[t]));
+                if (c.isZero()) {
+                    rem.remove(k);
+                } else {
+                    rem.put(k, c);
+                }
+            }
+        }
+        return fromMap(u, quot);
+    }
+
+    /** Synthetic division by a univariate a*x + b (the most frequent exact division). */
+    private Polynomial divideLinearUnivariateOrNull(Polynomial d) {
+        String x = d.vars[0];
+        Rational a = d.coeffs[0];
+        Rational b = d.coeffs[1];
+        Polynomial[] c = coefficientsIn(x);
+        int n = c.length - 1;
+        Polynomial[] q = new Polynomial[n];
+        Rational ainv = a.inverse();
+        Polynomial carry = ZERO;
+        for (int k = n; k >= 1; k--) {
+            carry = c[k].subtract(carry.multiply(b)).multiply(ainv);
+            q[k - 1] = carry;
+        }
+        if (!c[0].subtract(carry.multiply(b)).isZero()) {
+            return null;
+        }
+        return fromCoefficientsIn(x, q);
+    }
+
+    // ---------------------------------------------------------------- substitution and evaluation
 
     /** Simultaneous substitution of polynomials for variables. */
-    public Polynomial substitute(Map<String, Polynomial> values) { throw Rational.todo(); }
-    /** Value at a point; every variable of this polynomial must be given. */
-    public Rational evaluate(Map<String, Rational> point) { throw Rational.todo(); }
-    /** Partial evaluation: the given variables replaced by numbers, the rest kept. */
-    public Polynomial evaluatePartially(Map<String, Rational> point) { throw Rational.todo(); }
-    public Polynomial derivative(String variable) { throw Rational.todo(); }
+    public Polynomial substitute(Map<String, Polynomial> values) {
+        boolean any = false;
+        for (String v : vars) {
+            any |= values.containsKey(v);
+        }
+        if (!any) {
+            return this;
+        }
+        List<Map<Integer, Polynomial>> powers = new ArrayList<>();
+        Polynomial[] base = new Polynomial[vars.length];
+        for (int v = 0; v < vars.length; v++) {
+            Polynomial val = values.get(vars[v]);
+            base[v] = val == null ? variable(vars[v]) : val;
+            powers.add(new HashMap<>());
+        }
+        Polynomial result = ZERO;
+        for (int t = 0; t < exps.length; t++) {
+            Polynomial term = constant(coeffs[t]);
+            for (int v = 0; v < vars.length; v++) {
+                int e = exps[t][v];
+                if (e > 0) {
+                    final int fv = v;
+                    term = term.multiply(powers.get(v).computeIfAbsent(e, k -> base[fv].pow(k)));
+                }
+            }
+            result = result.add(term);
+        }
+        return result;
+    }
 
-    public int degree(String variable) { throw Rational.todo(); }
-    public int totalDegree() { throw Rational.todo(); }
-    public SortedSet<String> variables() { throw Rational.todo(); }
-    public int termCount() { throw Rational.todo(); }
+    /** Value at a point; every variable of this polynomial must be given. */
+    public Rational evaluate(Map<String, Rational> point) {
+        for (String v : vars) {
+            if (!point.containsKey(v)) {
+                throw new ContourException("cannot evaluate: no value given for variable '" + v + "'");
+            }
+        }
+        return evaluatePartially(point).constantValue();
+    }
+
+    /** Partial evaluation: the given variables replaced by numbers, the rest kept. */
+    public Polynomial evaluatePartially(Map<String, Rational> point) {
+        Rational[] val = new Rational[vars.length];
+        boolean any = false;
+        for (int v = 0; v < vars.length; v++) {
+            val[v] = point.get(vars[v]);
+            any |= val[v] != null;
+        }
+        if (!any) {
+            return this;
+        }
+        HashMap<Key, Rational> acc = new HashMap<>();
+        List<Map<Integer, Rational>> powers = new ArrayList<>();
+        for (int v = 0; v < vars.length; v++) {
+            powers.add(new HashMap<>());
+        }
+        for (int t = 0; t < exps.length; t++) {
+            Rational c = coeffs[t];
+            int[] e = exps[t].clone();
+            for (int v = 0; v < vars.length && !c.isZero(); v++) {
+                if (val[v] != null && e[v] > 0) {
+                    final Rational b = val[v];
+                    c = c.multiply(powers.get(v).computeIfAbsent(e[v], b::pow));
+                    e[v] = 0;
+                }
+            }
+            if (!c.isZero()) {
+                acc.merge(new Key(e), c, Rational::add);
+            }
+        }
+        return fromMap(vars, acc);
+    }
+
+    public Polynomial derivative(String variable) {
+        int v = indexOf(variable);
+        if (v < 0) {
+            return ZERO;
+        }
+        HashMap<Key, Rational> acc = new HashMap<>();
+        for (int t = 0; t < exps.length; t++) {
+            if (exps[t][v] > 0) {
+                int[] e = exps[t].clone();
+                Rational c = coeffs[t].multiply(Rational.of(e[v]));
+                e[v]--;
+                acc.put(new Key(e), c);
+            }
+        }
+        return fromMap(vars, acc);
+    }
+
+    // ---------------------------------------------------------------- structure
+
+    public int degree(String variable) {
+        int v = indexOf(variable);
+        if (v < 0) {
+            return isZero() ? -1 : 0;
+        }
+        int d = 0;
+        for (int[] e : exps) {
+            d = Math.max(d, e[v]);
+        }
+        return d;
+    }
+
+    /** Total degree; -1 for the zero polynomial. */
+    public int totalDegree() {
+        if (isZero()) {
+            return -1;
+        }
+        // The leading term has the largest total degree in a graded order.
+        int d = 0;
+        for (int x : exps[0]) {
+            d += x;
+        }
+        return d;
+    }
+
+    public SortedSet<String> variables() {
+        return Collections.unmodifiableSortedSet(new TreeSet<>(Arrays.asList(vars)));
+    }
+
+    public int termCount() {
+        return coeffs.length;
+    }
+
     /** Terms in the canonical monomial order, leading term first. */
-    public List<Term> terms() { throw Rational.todo(); }
+    public List<Term> terms() {
+        List<Term> out = new ArrayList<>(coeffs.length);
+        for (int t = 0; t < coeffs.length; t++) {
+            out.add(new Term(coeffs[t], exponentMap(exps[t])));
+        }
+        return Collections.unmodifiableList(out);
+    }
+
+    private Map<String, Integer> exponentMap(int[] e) {
+        Map<String, Integer> m = new LinkedHashMap<>();
+        for (int v = 0; v < vars.length; v++) {
+            if (e[v] != 0) {
+                m.put(vars[v], e[v]);
+            }
+        }
+        return Collections.unmodifiableMap(m);
+    }
+
     /** Coefficients with respect to the chosen variables: exponent list (same order as vars) to coefficient polynomial. */
-    public Map<List<Integer>, Polynomial> coefficients(List<String> vars) { throw Rational.todo(); }
+    public Map<List<Integer>, Polynomial> coefficients(List<String> chosen) {
+        int[] pos = new int[chosen.size()];
+        for (int i = 0; i < pos.length; i++) {
+            pos[i] = indexOf(chosen.get(i));
+        }
+        Map<List<Integer>, HashMap<Key, Rational>> acc = new LinkedHashMap<>();
+        for (int t = 0; t < exps.length; t++) {
+            List<Integer> key = new ArrayList<>(pos.length);
+            int[] rest = exps[t].clone();
+            for (int p : pos) {
+                key.add(p < 0 ? 0 : exps[t][p]);
+                if (p >= 0) {
+                    rest[p] = 0;
+                }
+            }
+            acc.computeIfAbsent(List.copyOf(key), k -> new HashMap<>()).put(new Key(rest), coeffs[t]);
+        }
+        Map<List<Integer>, Polynomial> out = new LinkedHashMap<>();
+        for (Map.Entry<List<Integer>, HashMap<Key, Rational>> e : acc.entrySet()) {
+            out.put(e.getKey(), fromMap(vars, e.getValue()));
+        }
+        return Collections.unmodifiableMap(out);
+    }
+
     /** Coefficient of variable^power, a polynomial in the other variables. */
-    public Polynomial coefficient(String variable, int power) { throw Rational.todo(); }
+    public Polynomial coefficient(String variable, int power) {
+        Polynomial[] c = coefficientsIn(variable);
+        return power >= 0 && power < c.length ? c[power] : ZERO;
+    }
+
+    /** Dense coefficient array in {@code x}: index k holds the coefficient of x^k (length degree+1; empty for zero). */
+    Polynomial[] coefficientsIn(String x) {
+        int v = indexOf(x);
+        if (v < 0) {
+            return isZero() ? new Polynomial[0] : new Polynomial[] {this};
+        }
+        int deg = degree(x);
+        @SuppressWarnings("unchecked")
+        List<int[]>[] ex = new List[deg + 1];
+        @SuppressWarnings("unchecked")
+        List<Rational>[] co = new List[deg + 1];
+        for (int k = 0; k <= deg; k++) {
+            ex[k] = new ArrayList<>();
+            co[k] = new ArrayList<>();
+        }
+        for (int t = 0; t < exps.length; t++) {
+            int k = exps[t][v];
+            int[] e = exps[t].clone();
+            e[v] = 0;
+            ex[k].add(e);
+            co[k].add(coeffs[t]);
+        }
+        Polynomial[] out = new Polynomial[deg + 1];
+        for (int k = 0; k <= deg; k++) {
+            // Removing one variable keeps graded-lex order among terms of equal x-degree.
+            out[k] = fromArrays(vars, ex[k].toArray(new int[0][]), co[k].toArray(new Rational[0]), true);
+        }
+        return out;
+    }
+
+    /** Inverse of {@link #coefficientsIn}: sum c[k] * x^k, where the c[k] are free of x. */
+    static Polynomial fromCoefficientsIn(String x, Polynomial[] c) {
+        Polynomial xv = variable(x);
+        Polynomial result = ZERO;
+        Polynomial xp = ONE;
+        for (int k = 0; k < c.length; k++) {
+            if (!c[k].isZero()) {
+                result = result.add(c[k].multiply(xp));
+            }
+            if (k + 1 < c.length) {
+                xp = xp.multiply(xv);
+            }
+        }
+        return result;
+    }
+
+    /** True when the total degree is exactly 1. */
+    boolean isLinear() {
+        return totalDegree() == 1;
+    }
 
     /** Positive rational content: gcd of numerators over lcm of denominators, sign of the leading term. */
-    public Rational content() { throw Rational.todo(); }
+    public Rational content() {
+        if (isZero()) {
+            return Rational.ZERO;
+        }
+        java.math.BigInteger g = java.math.BigInteger.ZERO;
+        java.math.BigInteger l = java.math.BigInteger.ONE;
+        boolean small = true;
+        long gs = 0;
+        long ls = 1;
+        for (Rational c : coeffs) {
+            if (small && c.isSmall()) {
+                gs = Rational.gcd(gs, Math.abs(c.longNum()));
+                long d = c.longDen();
+                long q = ls / Rational.gcd(ls, d);
+                try {
+                    ls = Math.multiplyExact(q, d);
+                    continue;
+                } catch (ArithmeticException overflow) {
+                    small = false;
+                    g = java.math.BigInteger.valueOf(gs);
+                    l = java.math.BigInteger.valueOf(q).multiply(java.math.BigInteger.valueOf(d));
+                    continue;
+                }
+            }
+            if (small) {
+                small = false;
+                g = java.math.BigInteger.valueOf(gs);
+                l = java.math.BigInteger.valueOf(ls);
+            }
+            g = g.gcd(c.numerator());
+            java.math.BigInteger d = c.denominator();
+            l = l.divide(l.gcd(d)).multiply(d);
+        }
+        Rational r = small ? Rational.of(gs, ls) : Rational.of(g, l);
+        return coeffs[0].signum() < 0 ? r.negate() : r;
+    }
+
     /** this / content(): integer coefficients with gcd 1 and positive leading coefficient. */
-    public Polynomial primitivePart() { throw Rational.todo(); }
-    public Rational leadingCoefficient() { throw Rational.todo(); }
+    public Polynomial primitivePart() {
+        if (isZero()) {
+            return ZERO;
+        }
+        Rational c = content();
+        return c.isOne() ? this : multiply(c.inverse());
+    }
 
-    public boolean isZero() { throw Rational.todo(); }
-    public boolean isConstant() { throw Rational.todo(); }
-    public boolean isOne() { throw Rational.todo(); }
+    /** Coefficient of the leading term in the monomial order; zero for the zero polynomial. */
+    public Rational leadingCoefficient() {
+        return isZero() ? Rational.ZERO : coeffs[0];
+    }
+
+    public boolean isZero() {
+        return coeffs.length == 0;
+    }
+
+    public boolean isConstant() {
+        return vars.length == 0;
+    }
+
+    public boolean isOne() {
+        return vars.length == 0 && coeffs.length == 1 && coeffs[0].isOne();
+    }
+
     /** The constant value; ContourException when not constant. */
-    public Rational constantValue() { throw Rational.todo(); }
+    public Rational constantValue() {
+        if (!isConstant()) {
+            throw new ContourException("not a constant: " + this);
+        }
+        return isZero() ? Rational.ZERO : coeffs[0];
+    }
 
-    @Override public boolean equals(Object o) { throw Rational.todo(); }
-    @Override public int hashCode() { throw Rational.todo(); }
+    /** A total order consistent with equals: term by term in the monomial order, then coefficients. */
+    @Override
+    public int compareTo(Polynomial o) {
+        String[] u = unionVars(vars, o.vars);
+        int[][] a = expsOver(u);
+        int[][] b = o.expsOver(u);
+        for (int i = 0; i < Math.min(a.length, b.length); i++) {
+            int c = compareExponents(a[i], b[i]);
+            if (c != 0) {
+                return c;
+            }
+            c = coeffs[i].compareTo(o.coeffs[i]);
+            if (c != 0) {
+                return c;
+            }
+        }
+        return Integer.compare(a.length, b.length);
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        if (this == o) {
+            return true;
+        }
+        if (!(o instanceof Polynomial p) || p.coeffs.length != coeffs.length || hashCode() != p.hashCode()) {
+            return false;
+        }
+        return Arrays.equals(vars, p.vars) && Arrays.deepEquals(exps, p.exps) && Arrays.equals(coeffs, p.coeffs);
+    }
+
+    @Override
+    public int hashCode() {
+        int h = hash;
+        if (h == 0) {
+            h = Arrays.hashCode(vars) * 31 * 31 + Arrays.deepHashCode(exps) * 31 + Arrays.hashCode(coeffs);
+            hash = h == 0 ? 1 : h;
+        }
+        return hash;
+    }
+
     /** A debugging form such as {@code 3*s^2*t - 1/2}; user-facing printing lives in print/. */
-    @Override public String toString() { throw Rational.todo(); }
+    @Override
+    public String toString() {
+        if (isZero()) {
+            return "0";
+        }
+        StringBuilder sb = new StringBuilder();
+        for (int t = 0; t < coeffs.length; t++) {
+            Rational c = coeffs[t];
+            if (t == 0) {
+                if (c.signum() < 0) {
+                    sb.append('-');
+                }
+            } else {
+                sb.append(c.signum() < 0 ? " - " : " + ");
+            }
+            Rational a = c.abs();
+            boolean mono = false;
+            StringBuilder m = new StringBuilder();
+            for (int v = 0; v < vars.length; v++) {
+                int e = exps[t][v];
+                if (e > 0) {
+                    if (mono) {
+                        m.append('*');
+                    }
+                    m.append(vars[v]);
+                    if (e > 1) {
+                        m.append('^').append(e);
+                    }
+                    mono = true;
+                }
+            }
+            if (!mono) {
+                sb.append(a);
+            } else if (a.isOne()) {
+                sb.append(m);
+            } else {
+                sb.append(a).append('*').append(m);
+            }
+        }
+        return sb.toString();
+    }
 
     /** One term: coefficient times prod variable^exponent (exponents > 0 only). */
     public record Term(Rational coefficient, Map<String, Integer> exponents) { }

@@ -1,70 +1,670 @@
 package dev.contour.algebra;
 
+import dev.contour.ContourException;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.SortedSet;
+import java.util.TreeMap;
+import java.util.TreeSet;
 
 /**
- * A canonical rational function num/den over Q (API CONTRACT skeleton).
+ * A canonical rational function num/den over Q.
  *
  * <p>Canonical form: numerator and denominator coprime; the denominator is kept as a product of
  * powers of pairwise coprime factors: primitive linear factors (integer coefficients, positive
- * leading coefficient, sorted) and at most one cofactor with no linear factor over Q; all rational
- * constants live in the numerator. Equal values have identical representations, so equals/hashCode
- * are structural. Every public operation returns a canonical value.
+ * leading coefficient, sorted by {@link Polynomial#compareTo}) and at most one cofactor (primitive,
+ * positive leading coefficient, exponent one, with no linear factor over Q; {@link Polynomial#ONE}
+ * when absent); all rational constants live in the numerator. Zero is 0/1. Equal values have
+ * identical representations, so equals/hashCode are structural. Every public operation returns a
+ * canonical value.
+ *
+ * <p>Why factored: the denominators met in Mellin amplitudes are products of linear forms, so a sum
+ * needs only the merge of factor lists (lcm by maximal exponent) and cancellation is a trial
+ * division by each known linear factor; a general gcd is used only against the cofactor.
  */
 public final class RationalFunction {
-    public static final RationalFunction ZERO = null;
-    public static final RationalFunction ONE = null;
+    private static final Polynomial[] NO_FACTORS = new Polynomial[0];
+    private static final int[] NO_MULT = new int[0];
 
-    private RationalFunction() { }
+    public static final RationalFunction ZERO = new RationalFunction(Polynomial.ZERO, NO_FACTORS, NO_MULT, Polynomial.ONE);
+    public static final RationalFunction ONE = new RationalFunction(Polynomial.ONE, NO_FACTORS, NO_MULT, Polynomial.ONE);
 
-    public static RationalFunction of(Polynomial p) { throw Rational.todo(); }
+    private final Polynomial num;
+    /** Sorted, distinct, primitive linear factors of the denominator. */
+    private final Polynomial[] lin;
+    /** Their exponents, each at least 1. */
+    private final int[] mult;
+    /** The non-linear rest of the denominator, primitive; ONE when absent. */
+    private final Polynomial cof;
+    private int hash;
+
+    private RationalFunction(Polynomial num, Polynomial[] lin, int[] mult, Polynomial cof) {
+        this.num = num;
+        this.lin = lin;
+        this.mult = mult;
+        this.cof = cof;
+    }
+
+    public static RationalFunction of(Polynomial p) {
+        return p.isZero() ? ZERO : new RationalFunction(p, NO_FACTORS, NO_MULT, Polynomial.ONE);
+    }
+
     /** num/den, cancelled and normalised; den = 0 throws ContourException. */
-    public static RationalFunction of(Polynomial num, Polynomial den) { throw Rational.todo(); }
-    public static RationalFunction constant(Rational c) { throw Rational.todo(); }
-    public static RationalFunction constant(long c) { throw Rational.todo(); }
-    public static RationalFunction variable(String name) { throw Rational.todo(); }
+    public static RationalFunction of(Polynomial num, Polynomial den) {
+        if (den.isZero()) {
+            throw new ContourException("division by zero: (" + num + ") / 0");
+        }
+        if (num.isZero()) {
+            return ZERO;
+        }
+        if (den.isConstant()) {
+            return of(num.multiply(den.constantValue().inverse()));
+        }
+        LinearFactors.Split s = LinearFactors.split(den);
+        Builder b = new Builder(num.multiply(s.unit().inverse()), s.cofactor());
+        for (LinearFactors.Factor f : s.factors()) {
+            b.factors.put(f.base(), f.multiplicity());
+        }
+        b.cancel();
+        return b.build();
+    }
 
-    public RationalFunction add(RationalFunction o) { throw Rational.todo(); }
-    public RationalFunction subtract(RationalFunction o) { throw Rational.todo(); }
-    public RationalFunction multiply(RationalFunction o) { throw Rational.todo(); }
-    public RationalFunction multiply(Rational c) { throw Rational.todo(); }
-    public RationalFunction divide(RationalFunction o) { throw Rational.todo(); }
-    public RationalFunction negate() { throw Rational.todo(); }
-    public RationalFunction inverse() { throw Rational.todo(); }
+    public static RationalFunction constant(Rational c) {
+        return of(Polynomial.constant(c));
+    }
+
+    public static RationalFunction constant(long c) {
+        return constant(Rational.of(c));
+    }
+
+    public static RationalFunction variable(String name) {
+        return of(Polynomial.variable(name));
+    }
+
+    /** Mutable assembly of a result inside one operation. */
+    private static final class Builder {
+        Polynomial num;
+        final TreeMap<Polynomial, Integer> factors = new TreeMap<>();
+        Polynomial cof;
+
+        Builder(Polynomial num, Polynomial cof) {
+            this.num = num;
+            this.cof = cof;
+        }
+
+        /** Removes common factors of the numerator and the denominator. */
+        void cancel() {
+            if (num.isZero()) {
+                return;
+            }
+            for (Map.Entry<Polynomial, Integer> f : factors.entrySet()) {
+                int e = f.getValue();
+                Polynomial q;
+                while (e > 0 && !num.isConstant() && (q = num.divideOrNull(f.getKey())) != null) {
+                    num = q;
+                    e--;
+                }
+                f.setValue(e);
+            }
+            factors.values().removeIf(e -> e == 0);
+            if (!cof.isConstant() && !num.isConstant()) {
+                Polynomial g = PolynomialGcd.gcd(num, cof);
+                if (!g.isConstant()) {
+                    num = num.divideOrNull(g);
+                    cof = cof.divideOrNull(g);
+                }
+            }
+        }
+
+        RationalFunction build() {
+            if (num.isZero()) {
+                return ZERO;
+            }
+            Rational c = cof.content();
+            if (!c.isOne()) {
+                cof = cof.multiply(c.inverse());
+                num = num.multiply(c.inverse());
+            }
+            factors.values().removeIf(e -> e == 0);
+            Polynomial[] l = factors.keySet().toArray(NO_FACTORS);
+            int[] m = new int[l.length];
+            int i = 0;
+            for (int e : factors.values()) {
+                m[i++] = e;
+            }
+            return new RationalFunction(num, l, m, cof);
+        }
+
+        /** Divides by a linear or constant polynomial raised to e, normalising it first. */
+        void divideByLinear(Polynomial l, int e, String why) {
+            if (l.isZero()) {
+                throw new ContourException("division by zero: " + why);
+            }
+            Rational c = l.content();
+            num = num.multiply(c.pow(-e));
+            if (!l.isConstant()) {
+                factors.merge(l.multiply(c.inverse()), e, Integer::sum);
+            }
+        }
+    }
+
+    // ---------------------------------------------------------------- arithmetic
+
+    public RationalFunction add(RationalFunction o) {
+        if (o.isZero()) {
+            return this;
+        }
+        if (isZero()) {
+            return o;
+        }
+        if (isPolynomial() && o.isPolynomial()) {
+            return of(num.add(o.num));
+        }
+        if (sameDenominator(o)) {
+            Builder b = new Builder(num.add(o.num), cof);
+            for (int i = 0; i < lin.length; i++) {
+                b.factors.put(lin[i], mult[i]);
+            }
+            b.cancel();
+            return b.build();
+        }
+        // Common denominator: factor lists merged by maximal exponent, cofactors by their lcm.
+        Polynomial ma = Polynomial.ONE;
+        Polynomial mb = Polynomial.ONE;
+        Polynomial lcmCof;
+        if (cof.equals(o.cof)) {
+            lcmCof = cof;
+        } else if (cof.isOne()) {
+            lcmCof = o.cof;
+            ma = o.cof;
+        } else if (o.cof.isOne()) {
+            lcmCof = cof;
+            mb = cof;
+        } else {
+            Polynomial g = PolynomialGcd.gcd(cof, o.cof);
+            Polynomial cb = o.cof.divideOrNull(g);
+            Polynomial ca = cof.divideOrNull(g);
+            lcmCof = cof.multiply(cb);
+            ma = cb;
+            mb = ca;
+        }
+        Builder b = new Builder(null, lcmCof);
+        int i = 0;
+        int j = 0;
+        while (i < lin.length || j < o.lin.length) {
+            int c = i == lin.length ? 1 : j == o.lin.length ? -1 : lin[i].compareTo(o.lin[j]);
+            if (c < 0) {
+                b.factors.put(lin[i], mult[i]);
+                mb = mb.multiply(lin[i].pow(mult[i]));
+                i++;
+            } else if (c > 0) {
+                b.factors.put(o.lin[j], o.mult[j]);
+                ma = ma.multiply(o.lin[j].pow(o.mult[j]));
+                j++;
+            } else {
+                int e = Math.max(mult[i], o.mult[j]);
+                b.factors.put(lin[i], e);
+                if (e > mult[i]) {
+                    ma = ma.multiply(lin[i].pow(e - mult[i]));
+                }
+                if (e > o.mult[j]) {
+                    mb = mb.multiply(lin[i].pow(e - o.mult[j]));
+                }
+                i++;
+                j++;
+            }
+        }
+        b.num = num.multiply(ma).add(o.num.multiply(mb));
+        b.cancel();
+        return b.build();
+    }
+
+    private boolean sameDenominator(RationalFunction o) {
+        return cof.equals(o.cof) && Arrays.equals(mult, o.mult) && Arrays.equals(lin, o.lin);
+    }
+
+    public RationalFunction subtract(RationalFunction o) {
+        return add(o.negate());
+    }
+
+    public RationalFunction multiply(RationalFunction o) {
+        if (isZero() || o.isZero()) {
+            return ZERO;
+        }
+        if (o.isConstant()) {
+            return multiply(o.num.constantValue());
+        }
+        if (isConstant()) {
+            return o.multiply(num.constantValue());
+        }
+        // Each numerator is already coprime to its own denominator: cancel it only against the other's.
+        Builder x = o.builder(num);
+        x.cancel();
+        Builder y = builder(o.num);
+        y.cancel();
+        Builder b = new Builder(x.num.multiply(y.num), x.cof.multiply(y.cof));
+        b.factors.putAll(x.factors);
+        for (Map.Entry<Polynomial, Integer> f : y.factors.entrySet()) {
+            b.factors.merge(f.getKey(), f.getValue(), Integer::sum);
+        }
+        return b.build();
+    }
+
+    /** A builder holding this denominator over the given numerator. */
+    private Builder builder(Polynomial numerator) {
+        Builder b = new Builder(numerator, cof);
+        for (int i = 0; i < lin.length; i++) {
+            b.factors.put(lin[i], mult[i]);
+        }
+        return b;
+    }
+
+    /** p over this function's denominator, cancelled (package-private: used to expand numerators). */
+    RationalFunction withNumerator(Polynomial p) {
+        if (p.isZero()) {
+            return ZERO;
+        }
+        Builder b = builder(p);
+        b.cancel();
+        return b.build();
+    }
+
+    public RationalFunction multiply(Rational c) {
+        if (c.isZero() || isZero()) {
+            return ZERO;
+        }
+        return c.isOne() ? this : new RationalFunction(num.multiply(c), lin, mult, cof);
+    }
+
+    public RationalFunction divide(RationalFunction o) {
+        if (o.isZero()) {
+            throw new ContourException("division by zero: (" + this + ") / 0");
+        }
+        return multiply(o.inverse());
+    }
+
+    public RationalFunction negate() {
+        return multiply(Rational.MINUS_ONE);
+    }
+
+    public RationalFunction inverse() {
+        if (isZero()) {
+            throw new ContourException("division by zero: inverse of 0");
+        }
+        if (num.isConstant()) {
+            return new RationalFunction(denominator().multiply(num.constantValue().inverse()), NO_FACTORS, NO_MULT, Polynomial.ONE);
+        }
+        LinearFactors.Split s = LinearFactors.split(num);
+        Builder b = new Builder(denominator().multiply(s.unit().inverse()), s.cofactor());
+        for (LinearFactors.Factor f : s.factors()) {
+            b.factors.put(f.base(), f.multiplicity());
+        }
+        return b.build();
+    }
+
     /** Integer power, negative allowed (0^negative throws). */
-    public RationalFunction pow(int exponent) { throw Rational.todo(); }
+    public RationalFunction pow(int exponent) {
+        if (exponent < 0) {
+            if (isZero()) {
+                throw new ContourException("division by zero: 0^" + exponent);
+            }
+            return inverse().pow(-exponent);
+        }
+        if (exponent == 0) {
+            return ONE;
+        }
+        if (exponent == 1) {
+            return this;
+        }
+        int[] m = new int[mult.length];
+        for (int i = 0; i < m.length; i++) {
+            m[i] = Math.multiplyExact(mult[i], exponent);
+        }
+        return new RationalFunction(num.pow(exponent), lin, m, cof.pow(exponent));
+    }
+
+    // ---------------------------------------------------------------- substitution and evaluation
 
     /** Simultaneous substitution of rational functions for variables. */
-    public RationalFunction substitute(Map<String, RationalFunction> values) { throw Rational.todo(); }
+    public RationalFunction substitute(Map<String, RationalFunction> values) {
+        Map<String, Polynomial> linear = new HashMap<>();
+        boolean allLinear = true;
+        for (String v : variables()) {
+            RationalFunction f = values.get(v);
+            if (f != null) {
+                if (f.isPolynomial() && f.num.totalDegree() <= 1) {
+                    linear.put(v, f.num);
+                } else {
+                    allLinear = false;
+                }
+            }
+        }
+        if (allLinear) {
+            return substituteLinear(linear);
+        }
+        RationalFunction result = evaluateWith(num, values);
+        for (int i = 0; i < lin.length; i++) {
+            result = result.divide(nonZero(evaluateWith(lin[i], values), lin[i]).pow(mult[i]));
+        }
+        if (!cof.isOne()) {
+            result = result.divide(nonZero(evaluateWith(cof, values), cof));
+        }
+        return result;
+    }
+
+    private static RationalFunction nonZero(RationalFunction f, Polynomial factor) {
+        if (f.isZero()) {
+            throw new ContourException("division by zero: the denominator factor (" + factor + ") vanishes after substitution");
+        }
+        return f;
+    }
+
+    /** p with rational-function values put in for its variables. */
+    private static RationalFunction evaluateWith(Polynomial p, Map<String, RationalFunction> values) {
+        RationalFunction result = ZERO;
+        List<Map<Integer, RationalFunction>> cache = new ArrayList<>();
+        RationalFunction[] base = new RationalFunction[p.vars.length];
+        for (int v = 0; v < p.vars.length; v++) {
+            RationalFunction val = values.get(p.vars[v]);
+            base[v] = val == null ? variable(p.vars[v]) : val;
+            cache.add(new HashMap<>());
+        }
+        for (int t = 0; t < p.coeffs.length; t++) {
+            RationalFunction term = constant(p.coeffs[t]);
+            for (int v = 0; v < p.vars.length; v++) {
+                int e = p.exps[t][v];
+                if (e > 0) {
+                    RationalFunction bv = base[v];
+                    term = term.multiply(cache.get(v).computeIfAbsent(e, bv::pow));
+                }
+            }
+            result = result.add(term);
+        }
+        return result;
+    }
+
     /**
      * Simultaneous substitution of polynomials of total degree at most 1 (shifts s -> s - 2,
      * swaps s <-> t, t -> 4p - s - t). Linear denominator factors stay linear, so this path needs
-     * no GCD in the common case.
+     * no GCD in the common case: when the substitution is an invertible affine change of the
+     * variables involved, coprimality and irreducibility are preserved and only renormalisation of
+     * the factors is needed.
      */
-    public RationalFunction substituteLinear(Map<String, Polynomial> values) { throw Rational.todo(); }
+    public RationalFunction substituteLinear(Map<String, Polynomial> values) {
+        Map<String, Polynomial> used = new HashMap<>();
+        for (String v : variables()) {
+            Polynomial p = values.get(v);
+            if (p != null) {
+                if (p.totalDegree() > 1) {
+                    throw new ContourException("substituteLinear needs values of degree at most 1, got " + v + " = " + p);
+                }
+                used.put(v, p);
+            }
+        }
+        if (used.isEmpty()) {
+            return this;
+        }
+        Builder b = new Builder(num.substitute(used), Polynomial.ONE);
+        for (int i = 0; i < lin.length; i++) {
+            Polynomial l = lin[i];
+            b.divideByLinear(l.substitute(used), mult[i], "the denominator factor (" + l + ") vanishes after substitution");
+        }
+        Polynomial newCof = cof.substitute(used);
+        if (newCof.isZero()) {
+            throw new ContourException("division by zero: the denominator factor (" + cof + ") vanishes after substitution");
+        }
+        boolean invertible = isInvertible(used);
+        if (invertible) {
+            Rational c = newCof.content();
+            b.num = b.num.multiply(c.inverse());
+            b.cof = newCof.multiply(c.inverse());
+            return b.build();
+        }
+        // A degenerate map can merge factors, create linear factors in the cofactor, or common factors.
+        LinearFactors.Split s = LinearFactors.split(newCof);
+        b.num = b.num.multiply(s.unit().inverse());
+        b.cof = s.cofactor();
+        for (LinearFactors.Factor f : s.factors()) {
+            b.factors.merge(f.base(), f.multiplicity(), Integer::sum);
+        }
+        b.cancel();
+        return b.build();
+    }
+
+    /** Whether the affine map of the variables of this function has a linear part of full rank. */
+    private boolean isInvertible(Map<String, Polynomial> used) {
+        SortedSet<String> own = variables();
+        TreeSet<String> target = new TreeSet<>();
+        Map<String, Polynomial> images = new HashMap<>();
+        for (String v : own) {
+            Polynomial img = used.getOrDefault(v, Polynomial.variable(v));
+            images.put(v, img);
+            target.addAll(img.variables());
+        }
+        if (target.size() < own.size()) {
+            return false;
+        }
+        List<String> cols = new ArrayList<>(target);
+        Rational[][] m = new Rational[own.size()][cols.size()];
+        int r = 0;
+        for (String v : own) {
+            Polynomial img = images.get(v);
+            for (int c = 0; c < cols.size(); c++) {
+                m[r][c] = img.coefficient(cols.get(c), 1).isZero() ? Rational.ZERO
+                        : img.coefficient(cols.get(c), 1).constantValue();
+            }
+            r++;
+        }
+        return rank(m) == own.size();
+    }
+
+    private static int rank(Rational[][] m) {
+        int rows = m.length;
+        int cols = rows == 0 ? 0 : m[0].length;
+        int rank = 0;
+        for (int c = 0; c < cols && rank < rows; c++) {
+            int p = -1;
+            for (int i = rank; i < rows; i++) {
+                if (!m[i][c].isZero()) {
+                    p = i;
+                    break;
+                }
+            }
+            if (p < 0) {
+                continue;
+            }
+            Rational[] t = m[p];
+            m[p] = m[rank];
+            m[rank] = t;
+            for (int i = rank + 1; i < rows; i++) {
+                if (!m[i][c].isZero()) {
+                    Rational f = m[i][c].divide(m[rank][c]);
+                    for (int k = c; k < cols; k++) {
+                        m[i][k] = m[i][k].subtract(f.multiply(m[rank][k]));
+                    }
+                }
+            }
+            rank++;
+        }
+        return rank;
+    }
+
     /** Value at a point; ContourException naming the factor when the point is a pole. */
-    public Rational evaluate(Map<String, Rational> point) { throw Rational.todo(); }
-    public RationalFunction evaluatePartially(Map<String, Rational> point) { throw Rational.todo(); }
-    public RationalFunction derivative(String variable) { throw Rational.todo(); }
+    public Rational evaluate(Map<String, Rational> point) {
+        Rational den = Rational.ONE;
+        for (int i = 0; i < lin.length; i++) {
+            Rational v = lin[i].evaluate(point);
+            if (v.isZero()) {
+                throw new ContourException("pole: the denominator factor (" + lin[i] + ") vanishes at " + point);
+            }
+            den = den.multiply(v.pow(mult[i]));
+        }
+        if (!cof.isOne()) {
+            Rational v = cof.evaluate(point);
+            if (v.isZero()) {
+                throw new ContourException("pole: the denominator factor (" + cof + ") vanishes at " + point);
+            }
+            den = den.multiply(v);
+        }
+        return num.evaluate(point).divide(den);
+    }
 
-    public Polynomial numerator() { throw Rational.todo(); }
+    public RationalFunction evaluatePartially(Map<String, Rational> point) {
+        Map<String, Polynomial> values = new HashMap<>();
+        for (Map.Entry<String, Rational> e : point.entrySet()) {
+            values.put(e.getKey(), Polynomial.constant(e.getValue()));
+        }
+        return substituteLinear(values);
+    }
+
+    public RationalFunction derivative(String variable) {
+        // (n/D)' = (n' - n * D'/D) / D with D'/D = sum e_i l_i'/l_i + c'/c.
+        RationalFunction logDerivative = ZERO;
+        for (int i = 0; i < lin.length; i++) {
+            Polynomial d = lin[i].derivative(variable);
+            if (!d.isZero()) {
+                logDerivative = logDerivative.add(of(d.multiply(Rational.of(mult[i])), lin[i]));
+            }
+        }
+        if (!cof.isOne()) {
+            logDerivative = logDerivative.add(of(cof.derivative(variable), cof));
+        }
+        RationalFunction top = of(num.derivative(variable)).subtract(of(num).multiply(logDerivative));
+        return top.multiply(new RationalFunction(Polynomial.ONE, lin, mult, cof));
+    }
+
+    // ---------------------------------------------------------------- structure
+
+    public Polynomial numerator() {
+        return num;
+    }
+
     /** The expanded denominator (product of the factors). */
-    public Polynomial denominator() { throw Rational.todo(); }
-    /** The denominator's factors with their exponents, in canonical order. */
-    public List<LinearFactors.Factor> denominatorFactors() { throw Rational.todo(); }
+    public Polynomial denominator() {
+        Polynomial d = cof;
+        for (int i = 0; i < lin.length; i++) {
+            d = d.multiply(lin[i].pow(mult[i]));
+        }
+        return d;
+    }
 
-    public boolean isZero() { throw Rational.todo(); }
-    public boolean isOne() { throw Rational.todo(); }
-    public boolean isPolynomial() { throw Rational.todo(); }
-    public boolean isConstant() { throw Rational.todo(); }
-    public Rational constantValue() { throw Rational.todo(); }
-    public SortedSet<String> variables() { throw Rational.todo(); }
+    /** The denominator's factors with their exponents, in canonical order: linear factors sorted, then the cofactor (if any). */
+    public List<LinearFactors.Factor> denominatorFactors() {
+        List<LinearFactors.Factor> out = new ArrayList<>();
+        for (int i = 0; i < lin.length; i++) {
+            out.add(new LinearFactors.Factor(lin[i], mult[i]));
+        }
+        if (!cof.isOne()) {
+            out.add(new LinearFactors.Factor(cof, 1));
+        }
+        return Collections.unmodifiableList(out);
+    }
+
+    public boolean isZero() {
+        return num.isZero();
+    }
+
+    public boolean isOne() {
+        return isPolynomial() && num.isOne();
+    }
+
+    public boolean isPolynomial() {
+        return lin.length == 0 && cof.isOne();
+    }
+
+    public boolean isConstant() {
+        return isPolynomial() && num.isConstant();
+    }
+
+    public Rational constantValue() {
+        if (!isConstant()) {
+            throw new ContourException("not a constant: " + this);
+        }
+        return num.constantValue();
+    }
+
+    public SortedSet<String> variables() {
+        TreeSet<String> s = new TreeSet<>(Arrays.asList(num.vars));
+        for (Polynomial l : lin) {
+            s.addAll(Arrays.asList(l.vars));
+        }
+        s.addAll(Arrays.asList(cof.vars));
+        return Collections.unmodifiableSortedSet(s);
+    }
+
     /** Re-checks every canonical-form invariant from scratch (tests call it after each operation). */
-    public boolean isCanonical() { throw Rational.todo(); }
+    public boolean isCanonical() {
+        if (num.isZero()) {
+            return lin.length == 0 && cof.isOne();
+        }
+        if (lin.length != mult.length) {
+            return false;
+        }
+        for (int i = 0; i < lin.length; i++) {
+            Polynomial l = lin[i];
+            if (!l.isLinear() || !l.primitivePart().equals(l) || mult[i] < 1) {
+                return false;
+            }
+            if (i > 0 && lin[i - 1].compareTo(l) >= 0) {
+                return false;
+            }
+            if (num.divideOrNull(l) != null) {
+                return false;
+            }
+        }
+        if (cof.isZero() || !cof.primitivePart().equals(cof)) {
+            return false;
+        }
+        if (!cof.isOne()) {
+            if (cof.isConstant() || !LinearFactors.split(cof).factors().isEmpty()) {
+                return false;
+            }
+            if (!PolynomialGcd.gcd(num, cof).isConstant()) {
+                return false;
+            }
+        }
+        return true;
+    }
 
-    @Override public boolean equals(Object o) { throw Rational.todo(); }
-    @Override public int hashCode() { throw Rational.todo(); }
-    @Override public String toString() { throw Rational.todo(); }
+    @Override
+    public boolean equals(Object o) {
+        if (this == o) {
+            return true;
+        }
+        return o instanceof RationalFunction r && hashCode() == r.hashCode() && num.equals(r.num)
+                && Arrays.equals(mult, r.mult) && Arrays.equals(lin, r.lin) && cof.equals(r.cof);
+    }
+
+    @Override
+    public int hashCode() {
+        int h = hash;
+        if (h == 0) {
+            h = ((num.hashCode() * 31 + Arrays.hashCode(lin)) * 31 + Arrays.hashCode(mult)) * 31 + cof.hashCode();
+            hash = h == 0 ? 1 : h;
+        }
+        return hash;
+    }
+
+    /** A debugging form such as {@code (s + 1)/((s - 2)^2*(t - 3))}; user-facing printing lives in print/. */
+    @Override
+    public String toString() {
+        if (isPolynomial()) {
+            return num.toString();
+        }
+        StringBuilder d = new StringBuilder();
+        for (LinearFactors.Factor f : denominatorFactors()) {
+            if (d.length() > 0) {
+                d.append('*');
+            }
+            d.append('(').append(f.base()).append(')');
+            if (f.multiplicity() > 1) {
+                d.append('^').append(f.multiplicity());
+            }
+        }
+        return "(" + num + ")/(" + d + ")";
+    }
 }
