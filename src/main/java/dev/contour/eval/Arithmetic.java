@@ -107,9 +107,43 @@ public final class Arithmetic {
                 if (e < 0 && a.isZero()) {
                     throw new ContourException("zero to a negative power", span);
                 }
+                checkExpansionSize(a, e, span);
                 yield a.pow(e);
             }
         };
+    }
+
+    /** Most terms a power may expand to, estimated before expanding (so a typo cannot hang a run). */
+    static final double MAX_EXPANDED_TERMS = 2e6;
+
+    /**
+     * Rejects powers whose expansion would be enormous: a polynomial of degree d in k variables
+     * raised to e has at most binom(k + d*e, k) terms.
+     */
+    private static void checkExpansionSize(Expression a, int e, Span span) {
+        if (a.terms().size() <= 1 && (a.isZero() || isMonomialCoefficient(a))) {
+            return;
+        }
+        int k = a.innerVariables().size() + a.collectedVariables().size();
+        long degree = 0;
+        for (var t : a.terms().entrySet()) {
+            long d = Math.abs((long) t.getKey().totalDegree()) + t.getValue().numerator().totalDegree()
+                    + t.getValue().denominator().totalDegree();
+            degree = Math.max(degree, d);
+        }
+        double n = (double) degree * Math.abs(e);
+        double bound = 1;
+        for (int i = 1; i <= k && bound <= MAX_EXPANDED_TERMS; i++) {
+            bound = bound * (n + i) / i;
+        }
+        if (bound > MAX_EXPANDED_TERMS) {
+            throw new ContourException("the power ^" + e + " would expand to too many terms", span);
+        }
+    }
+
+    private static boolean isMonomialCoefficient(Expression a) {
+        var c = a.terms().values().iterator().next();
+        return c.numerator().termCount() == 1 && c.denominatorFactors().size() <= 1;
     }
 
     private static Value terms(Operator op, Term a, Value right, Span span, EvaluationLimits limits) {

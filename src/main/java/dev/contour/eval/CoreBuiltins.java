@@ -5,6 +5,7 @@ import dev.contour.Span;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Monomial;
 import dev.contour.algebra.RationalFunction;
+import dev.contour.print.CollectedView;
 import dev.contour.term.Term;
 import dev.contour.term.Terms;
 import java.util.ArrayList;
@@ -24,7 +25,7 @@ final class CoreBuiltins {
                 (a, span) -> symbolic(Terms.FACTORIAL, List.of(a.get(0)), span)));
         r.register(Builtin.of(Terms.BINOM, 2, "binom(n, k), the binomial coefficient; exact for integer k",
                 (a, span) -> symbolic(Terms.BINOM, List.of(a.get(0), a.get(1)), span)));
-        r.register(Builtin.of("coefficient", 2, "coefficient(e, m): the coefficient of the collected monomial m in e",
+        r.register(Builtin.of("coefficient", 2, "coefficient(e, m): the part of e multiplying exactly the power product m of its variables",
                 CoreBuiltins::coefficient));
     }
 
@@ -52,7 +53,18 @@ final class CoreBuiltins {
             throw new ContourException("coefficient: the second argument must be a monomial in collected variables, such as sigma^2*tau",
                     a.spanOf(1));
         }
-        RationalFunction c = e.terms().get(terms.keySet().iterator().next());
-        return new ExprValue(c == null ? Expression.ZERO : Expression.of(c));
+        Map<String, Integer> wanted = terms.keySet().iterator().next().exponents();
+        List<String> vars = new ArrayList<>(wanted.keySet());
+        List<Integer> exps = vars.stream().map(wanted::get).toList();
+        try {
+            for (CollectedView.Row row : CollectedView.of(e, vars)) {
+                if (row.exponents().equals(exps)) {
+                    return new ExprValue(row.coefficient());
+                }
+            }
+        } catch (ContourException x) {
+            throw x.at(a.spanOf(0));
+        }
+        return new ExprValue(Expression.ZERO);
     }
 }

@@ -22,7 +22,7 @@ final class Display {
         this.format = format;
     }
 
-    String show(Stmt.Show sh, Value v) {
+    String show(Stmt.Show sh, Value v, String context) {
         OutputFormat f = format;
         boolean factored = false;
         List<String> collect = null;
@@ -44,7 +44,7 @@ final class Display {
                 throw new ContourException("'collected' lays out rational expressions, not " + Values.describe(v), sh.span());
             }
             try {
-                return collected(sh.label(), e.value(), collect, factored, f);
+                return collected(context + sh.label(), e.value(), collect, factored, f);
             } catch (ContourException x) {
                 throw x.at(sh.span());
             }
@@ -53,10 +53,10 @@ final class Display {
         return switch (f) {
             case PLAIN -> {
                 String text = plain(v, factored);
-                yield (text.equals(label) ? text : label + " = " + text) + "\n";
+                yield context + (text.equals(label) ? text : label + " = " + text) + "\n";
             }
-            case LATEX -> "% " + label + "\n" + latex(v, factored) + "\n";
-            case JSON -> "{\"show\":" + JsonPrinter.string(label) + ",\"value\":" + json(v) + "}\n";
+            case LATEX -> "% " + context + label + "\n" + latex(v, factored) + "\n";
+            case JSON -> "{\"show\":" + JsonPrinter.string(context + label) + ",\"value\":" + json(v) + "}\n";
         };
     }
 
@@ -103,9 +103,9 @@ final class Display {
         }
     }
 
-    String check(Stmt.Check c, CheckOutcome o, boolean oneLine) {
+    String check(Stmt.Check c, CheckOutcome o, boolean oneLine, String context) {
         if (format == OutputFormat.JSON) {
-            StringBuilder out = new StringBuilder("{\"check\":" + JsonPrinter.string(c.label()) + ",\"line\":" + c.span().line()
+            StringBuilder out = new StringBuilder("{\"check\":" + JsonPrinter.string(context + c.label()) + ",\"line\":" + c.span().line()
                     + ",\"ok\":" + o.holds());
             if (!o.holds() && o.firstDifference() != null) {
                 out.append(",\"monomial\":").append(JsonPrinter.string(PlainPrinter.monomial(o.firstDifference())))
@@ -123,12 +123,12 @@ final class Display {
         }
         String prefix = format == OutputFormat.LATEX ? "% " : "";
         if (o.holds()) {
-            return prefix + "check " + c.label() + "  ok\n";
+            return prefix + "check " + context + c.label() + "  ok\n";
         }
         String at = o.point() == null ? null : o.point().entrySet().stream()
                 .map(x -> x.getKey() + " = " + x.getValue()).collect(Collectors.joining(", "));
         if (oneLine) {
-            StringBuilder out = new StringBuilder(prefix + "check " + c.label() + "  FAILED");
+            StringBuilder out = new StringBuilder(prefix + "check " + context + c.label() + "  FAILED");
             List<String> notes = new ArrayList<>();
             if (o.firstDifference() != null) {
                 notes.add("coefficient of " + PlainPrinter.monomial(o.firstDifference()) + " differs");
@@ -141,7 +141,7 @@ final class Display {
             }
             return out.append('\n').toString();
         }
-        StringBuilder out = new StringBuilder(prefix + "check " + c.label() + "  FAILED (line " + c.span().line() + ")\n");
+        StringBuilder out = new StringBuilder(prefix + "check " + context + c.label() + "  FAILED (line " + c.span().line() + ")\n");
         if (o.firstDifference() != null) {
             out.append(prefix).append("    first difference, in the coefficient of ")
                     .append(PlainPrinter.monomial(o.firstDifference())).append(":\n");

@@ -40,6 +40,8 @@ public final class Interpreter {
     private final SessionLog log = new SessionLog();
     private final Set<Path> used = new HashSet<>();
     private Deque<Map<String, Value>> frames = new ArrayDeque<>();
+    /** The loop variables in force, outermost first, shown beside output from inside loops. */
+    private final List<String> loopContext = new ArrayList<>();
     private Path directory;
     private int fileDepth;
     private int callDepth;
@@ -182,7 +184,7 @@ public final class Interpreter {
         } else if (s instanceof Stmt.Show sh) {
             Value v = eval(sh.value());
             if (!options.checksOnly()) {
-                options.out().print(display.show(sh, v));
+                options.out().print(display.show(sh, v, context()));
             }
         } else if (s instanceof Stmt.Check c) {
             Value left = eval(c.left());
@@ -193,14 +195,16 @@ public final class Interpreter {
             } else {
                 failed++;
             }
-            options.out().print(display.check(c, outcome, options.checksOnly()));
+            options.out().print(display.check(c, outcome, options.checksOnly(), context()));
         } else if (s instanceof Stmt.For f) {
             Value range = eval(f.range());
             List<Value> members = members(range, f.range().span(), "a 'for' loop");
             Map<String, Value> frame = new HashMap<>();
             frames.push(frame);
+            loopContext.add("");
             try {
                 for (Value m : members) {
+                    loopContext.set(loopContext.size() - 1, f.variable() + " = " + Display.plain(m, false));
                     if (++loopIterations > options.limits().maxLoopIterations()) {
                         throw new ContourException("more than " + options.limits().maxLoopIterations()
                                 + " loop iterations in one run", f.span());
@@ -212,6 +216,7 @@ public final class Interpreter {
                 }
             } finally {
                 frames.pop();
+                loopContext.remove(loopContext.size() - 1);
             }
         } else if (s instanceof Stmt.Rule r) {
             registry.ruleSink(r.span()).accept(r);
@@ -231,6 +236,10 @@ public final class Interpreter {
         } else {
             throw new IllegalStateException("interpreter: unhandled statement " + s.getClass().getSimpleName());
         }
+    }
+
+    private String context() {
+        return loopContext.isEmpty() ? "" : "[" + String.join(", ", loopContext) + "] ";
     }
 
     private void declareVariable(String name, boolean collected, Span span) {

@@ -220,7 +220,7 @@ public final class PlainPrinter {
             return powerText(w.base(), w.exponent(), factored);
         }
         String text = term(t, factored);
-        boolean simple = text.matches("[A-Za-z0-9_\\[\\],^*]+");
+        boolean simple = text.matches("[A-Za-z0-9_\\[\\],^*/]+");
         return simple ? text : "(" + text + ")";
     }
 }

@@ -25,6 +25,8 @@ import java.util.function.UnaryOperator;
 public final class Terms {
     /** Longest Pochhammer product or factorial expanded exactly; beyond it the step fails clearly. */
     public static final int MAX_EXACT_LENGTH = 10_000;
+    /** Longest Pochhammer product of a symbolic argument expanded exactly (its degree). */
+    public static final int MAX_SYMBOLIC_LENGTH = 1_000;
     /** Most monomials a normalised term may have. */
     public static final int MAX_MONOMIALS = 100_000;
 
@@ -84,6 +86,10 @@ public final class Terms {
     /** Pochhammer symbol (x)_n for an integer n (negative n: 1/((x-1)(x-2)...(x+n))). */
     public static Expression pochhammer(Expression x, int n) {
         checkLength(n);
+        if (!x.isConstant() && Math.abs((long) n) > MAX_SYMBOLIC_LENGTH) {
+            throw new ContourException("a symbolic Pochhammer symbol of length " + n + " is past the limit of "
+                    + MAX_SYMBOLIC_LENGTH);
+        }
         Expression result = Expression.ONE;
         if (n >= 0) {
             for (int k = 0; k < n; k++) {
