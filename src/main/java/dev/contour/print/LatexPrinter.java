@@ -126,7 +126,8 @@ public final class LatexPrinter {
         String text = polynomial(p);
         boolean atomic = p.termCount() == 1;
         String base = atomic || !parenthesise ? text : "\\left(" + text + "\\right)";
-        return f.multiplicity() == 1 ? base : (atomic ? base : "\\left(" + text + "\\right)") + "^{" + f.multiplicity() + "}";
+        boolean bare = p.isConstant() || PlainPrinter.isVariable(p);
+        return f.multiplicity() == 1 ? base : (bare ? text : "\\left(" + text + "\\right)") + "^{" + f.multiplicity() + "}";
     }
 
     public static String term(Term t, boolean factored) {

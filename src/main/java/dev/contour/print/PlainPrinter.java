@@ -148,9 +148,14 @@ public final class PlainPrinter {
     private static String factor(LinearFactors.Factor f) {
         Polynomial p = f.base();
         String text = polynomial(p);
-        boolean atomic = p.termCount() == 1 && (p.isConstant() || (p.totalDegree() == 1 && p.terms().get(0).coefficient().isOne()));
+        boolean powerProduct = p.termCount() == 1 && p.terms().get(0).coefficient().isOne();
+        boolean atomic = p.isConstant() || (powerProduct && (f.multiplicity() == 1 || isVariable(p)));
         String base = atomic ? text : "(" + text + ")";
         return f.multiplicity() == 1 ? base : base + "^" + f.multiplicity();
+    }
+
+    static boolean isVariable(Polynomial p) {
+        return p.termCount() == 1 && p.totalDegree() == 1 && p.terms().get(0).coefficient().isOne();
     }
 
     /** A symbolic term, using the language's own function names. */
