@@ -1,0 +1,83 @@
+package dev.contour.repl;
+
+import dev.contour.cli.Main;
+import dev.contour.cli.Subcommand;
+import dev.contour.eval.OutputFormat;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintStream;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.jline.terminal.Terminal;
+import org.jline.terminal.TerminalBuilder;
+
+/**
+ * {@code contour repl [OPTIONS] [FILE...]}: an interactive session, after running the given
+ * scripts in it. On a terminal it edits lines with JLine; with piped input it reads plain lines.
+ */
+public final class ReplCommand implements Subcommand {
+    private static final String USAGE = """
+            usage: contour repl [OPTIONS] [FILE...]
+              FILE...          scripts to run in the session before the first prompt
+              --history=FILE   keep typed lines in FILE (default: $%s, else ~/.contour_history)
+              --no-history     keep no history
+              --latex, --json, --rules=DIR, --debug   as for 'contour run'
+            """.formatted(ReplSettings.HISTORY_VARIABLE);
+
+    @Override
+    public String name() {
+        return "repl";
+    }
+
+    @Override
+    public String summary() {
+        return "an interactive session";
+    }
+
+    @Override
+    public int run(List<String> args, InputStream in, PrintStream out, PrintStream err) {
+        OutputFormat format = OutputFormat.PLAIN;
+        Path rules = null;
+        boolean debug = false;
+        Path history = ReplSettings.defaultHistoryFile();
+        List<String> files = new ArrayList<>();
+        for (String a : args) {
+            if (a.equals("--latex")) {
+                format = OutputFormat.LATEX;
+            } else if (a.equals("--json")) {
+                format = OutputFormat.JSON;
+            } else if (a.equals("--debug")) {
+                debug = true;
+            } else if (a.startsWith("--rules=")) {
+                rules = Path.of(a.substring("--rules=".length()));
+            } else if (a.startsWith("--history=")) {
+                String file = a.substring("--history=".length());
+                history = file.isBlank() ? null : Path.of(file);
+            } else if (a.equals("--no-history")) {
+                history = null;
+            } else if (a.equals("-h") || a.equals("--help")) {
+                out.print(USAGE);
+                return Main.OK;
+            } else if (a.startsWith("-") && !a.equals("-")) {
+                err.println("contour repl: unknown option '" + a + "'");
+                err.print(USAGE);
+                return Main.BAD_INPUT;
+            } else {
+                files.add(a);
+            }
+        }
+        ReplSettings settings = new ReplSettings(history, format, rules, debug);
+        try {
+            if (in == System.in && System.console() != null) {
+                try (Terminal terminal = TerminalBuilder.builder().system(true).build()) {
+                    return Repl.onTerminal(terminal, settings, Repl.preloading(files));
+                }
+            }
+            return Repl.onStreams(in, out, err, settings, Repl.preloading(files));
+        } catch (IOException e) {
+            err.println("contour repl: cannot read the input: " + e.getMessage());
+            return Main.BAD_INPUT;
+        }
+    }
+}

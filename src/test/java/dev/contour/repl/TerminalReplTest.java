@@ -1,0 +1,100 @@
+package dev.contour.repl;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.jline.terminal.Terminal;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The REPL on a (pipe-made) terminal: line editing, history, completion, continuation, Ctrl-C. */
+class TerminalReplTest {
+    /** Ctrl-P: the previous history entry (whatever the arrow keys send on this terminal type). */
+    private static final String PREVIOUS = "\u0010";
+
+    @TempDir
+    Path dir;
+
+    private TerminalHarness session(Path history) throws Exception {
+        return new TerminalHarness(ReplSettings.plain().withHistory(history));
+    }
+
+    @Test
+    void eachAcceptedLineIsInTheHistoryFileAtOnceAndTheNextSessionRecallsIt() throws Exception {
+        Path history = dir.resolve("history");
+        try (TerminalHarness t = session(history)) {
+            t.type("let kept = \"first session\"\n");
+            t.awaitText("contour 2> ");
+            // Still inside the session: nothing waits for a clean exit before writing.
+            assertTrue(Files.readString(history).contains("let kept = \"first session\""), Files.readString(history));
+            t.type(" show kept\n");
+            t.awaitText("first session\n");
+            assertTrue(Files.readString(history).contains("show kept"), "lines opening with a space are kept too");
+            assertEquals(0, t.finish());
+        }
+        try (TerminalHarness t = session(history)) {
+            t.awaitText("contour 1> ");
+            t.type(PREVIOUS + PREVIOUS + "\n");
+            t.awaitText("contour 2> ");
+            t.type(PREVIOUS + PREVIOUS + "\n");
+            t.awaitText("contour 3> ");
+            // The recalled definition ran again, then the recalled 'show' printed its value.
+            String screen = t.await(s -> s.indexOf("first session\n", s.indexOf("contour 2> ")) > 0, "the recalled show");
+            assertTrue(screen.contains("contour 2> "), screen);
+            t.finish();
+        }
+    }
+
+    @Test
+    void tabCompletesADefinedName() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("let greeting_text = \"hello there\"\n");
+            t.type("{greet\t}\n");
+            t.awaitText("{greeting_text} = {\"hello there\"}\n");
+            t.type(":wr\t" + dir.resolve("saved.ctr") + "\n");
+            t.awaitText("wrote 1 line to ");
+            assertTrue(Files.readString(dir.resolve("saved.ctr")).contains("let greeting_text = \"hello there\""));
+        }
+    }
+
+    @Test
+    void anOpenBracketContinuesOnTheNextLine() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("let w = \"x\"\n");
+            t.type("show {w,\n");
+            t.awaitText("         | "); // the continuation prompt, as wide as "contour 2> "
+            t.type("w,\nw}\n");
+            t.awaitText("{w, w, w} = {\"x\", \"x\", \"x\"}\n");
+            t.awaitText("contour 5> ");
+        }
+    }
+
+    @Test
+    void aSyntaxErrorIsReportedWithLineAndColumnAndTheSessionGoesOn() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("let w = \"still here\"\n");
+            t.type("let = 3\n");
+            t.awaitText("<repl>:2:5: expected a name, found '='\n    let = 3\n        ^\n");
+            t.type("w\n");
+            t.awaitText("still here\n");
+            assertEquals(2, t.finish());
+        }
+    }
+
+    @Test
+    void ctrlCWhileTypingDropsTheUnfinishedInput() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("show {\"dropped\",\n");
+            t.awaitText(" | ");
+            t.raise(Terminal.Signal.INT);
+            // A fresh prompt, with the same number: the half-typed input was not counted.
+            t.await(s -> s.indexOf("contour 1> ") != s.lastIndexOf("contour 1> "), "a second 'contour 1> ' prompt");
+            t.type("show \"next\"\n");
+            t.awaitText("next\n");
+            assertTrue(!t.screen().contains("dropped\"}"), t.screen());
+            assertEquals(0, t.finish());
+        }
+    }
+}
