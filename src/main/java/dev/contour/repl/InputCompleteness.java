@@ -17,7 +17,7 @@ final class InputCompleteness {
     /** Words after which an expression or statement cannot end. */
     private static final Set<String> DANGLING_WORDS =
             Set.of("at", "with", "step", "in", "becomes", "when", "normalized", "for", "sum", "solve",
-                    "let", "def", "vars", "unknown", "use", "show", "check", "rule");
+                    "let", "def", "vars", "unknown", "use", "show", "check", "rule", "derive", "using", "within", "by");
 
     private InputCompleteness() { }
 

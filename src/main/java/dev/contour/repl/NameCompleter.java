@@ -15,7 +15,8 @@ import org.jline.reader.ParsedLine;
  */
 final class NameCompleter implements Completer {
     static final List<String> KEYWORDS = List.of("vars", "collected", "let", "def", "unknown", "use", "show", "check",
-            "for", "in", "rule", "becomes", "when", "sum", "solve", "at", "with", "normalized", "step", "factored", "as");
+            "for", "in", "rule", "becomes", "when", "sum", "solve", "at", "with", "normalized", "step", "factored", "as",
+            "derive", "using", "within", "by", "rules");
 
     private final Supplier<Set<String>> names;
     private final Completer files = new Completers.FileNameCompleter();

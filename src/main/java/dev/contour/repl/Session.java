@@ -35,7 +35,7 @@ public final class Session {
 
     /** Words that open a statement; an input that opens with anything else is a bare expression. */
     private static final Set<String> STATEMENT_WORDS =
-            Set.of("vars", "let", "def", "unknown", "use", "show", "check", "for", "rule");
+            Set.of("vars", "let", "def", "unknown", "use", "show", "check", "for", "rule", "derive");
 
     /** The {@code :commands}: name, argument, what it does. */
     static final List<String[]> COMMANDS = List.of(

@@ -97,4 +97,26 @@ class TerminalReplTest {
             assertEquals(0, t.finish());
         }
     }
+
+    @Test
+    void ctrlCStopsALongComputationAndTheSessionKeepsItsEarlierState() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("vars s, t\nlet kept = s + t\n");
+            t.awaitText("contour 3> ");
+            // Hours of work if left alone: a million expansions of a 20th power.
+            t.type("let kept = 0; for i in 1..1000000 { let z = (s + i*t)^20 }\n");
+            t.awaitText("for i in 1..1000000 { let z = (s + i*t)^20 }\n");
+            while (!t.screen().contains("interrupted\n")) {
+                t.raise(Terminal.Signal.INT); // again, in case the first came before the work began
+                Thread.sleep(100);
+            }
+            t.awaitText("contour 4> ");
+            t.type("show kept\n");
+            t.awaitText("kept = s + t\n");
+            t.type("z\n");
+            t.awaitText("unknown name 'z'");
+            t.type(":end\n");
+            assertEquals(2, t.finish());
+        }
+    }
 }
