@@ -1,0 +1,216 @@
+package dev.contour.solve;
+
+import dev.contour.ContourException;
+import dev.contour.Span;
+import dev.contour.algebra.Rational;
+import java.math.BigInteger;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.TreeMap;
+
+/**
+ * A sparse linear system over Q in named unknowns, whose equations are grouped by the constraint
+ * (and source span) that produced them, solved exactly.
+ *
+ * <p>Why not {@link dev.contour.algebra.LinearSystem}: ansatz systems reach 10^5 unknowns and 10^6
+ * equations with two to five entries each. Solving them needs a modular pass for the rank and pivot
+ * structure, exact propagation with a final check over Q, and conflict analysis by constraint; those
+ * are specific to constraint solving and live here. The result is exact: see {@link ExactBacksolve}.
+ */
+public final class SparseSystem {
+    /** Word-sized primes below 2^31, so products of residues fit in a long. */
+    private static final long[] PRIMES = {2147483629L, 2147483587L, 2147483579L, 2147483563L, 2147483549L};
+
+    private final List<String> unknowns;
+    private final List<Span> spans = new ArrayList<>();
+    private final List<String> labels = new ArrayList<>();
+    private final List<IntegerRow> rows = new ArrayList<>();
+
+    public SparseSystem(List<String> unknowns) {
+        this.unknowns = List.copyOf(unknowns);
+        if (new LinkedHashSet<>(unknowns).size() != unknowns.size()) {
+            throw new ContourException("an unknown is listed twice: " + unknowns);
+        }
+    }
+
+    public List<String> unknowns() {
+        return unknowns;
+    }
+
+    /** Registers a constraint (where it was written and a short description); returns its tag. */
+    public int constraint(Span span, String label) {
+        spans.add(span == null ? Span.NONE : span);
+        labels.add(label);
+        return spans.size() - 1;
+    }
+
+    /** Adds sum coefficients[col] x_col = rhs for the constraint with the given tag (0 = 0 is skipped). */
+    public void addEquation(int tag, Map<Integer, Rational> coefficients, Rational rhs) {
+        TreeMap<Integer, Rational> sorted = new TreeMap<>();
+        coefficients.forEach((c, v) -> {
+            if (c < 0 || c >= unknowns.size()) {
+                throw new ContourException("column " + c + " is not an unknown of this system");
+            }
+            if (!v.isZero()) {
+                sorted.put(c, v);
+            }
+        });
+        int[] cols = sorted.keySet().stream().mapToInt(Integer::intValue).toArray();
+        addSorted(tag, cols, sorted.values().toArray(new Rational[0]), rhs);
+    }
+
+    /** Adds an equation whose columns are sorted, distinct and whose values are non-zero. */
+    void addSorted(int tag, int[] cols, Rational[] vals, Rational rhs) {
+        if (tag < 0 || tag >= spans.size()) {
+            throw new ContourException("unknown constraint tag " + tag);
+        }
+        IntegerRow row = IntegerRow.of(cols, vals, rhs, tag);
+        if (row != null) {
+            synchronized (rows) {
+                rows.add(row);
+            }
+        }
+    }
+
+    public int equations() {
+        return rows.size();
+    }
+
+    public Solution solve() {
+        return solve(SolveProgress.silent());
+    }
+
+    public Solution solve(SolveProgress progress) {
+        List<IntegerRow> distinct = distinct(rows);
+        progress.generated(distinct.size());
+        for (long prime : PRIMES) {
+            ModularElimination.Result mod = ModularElimination.run(distinct, unknowns.size(), prime, progress);
+            if (!mod.consistent()) {
+                return conflict(prime);
+            }
+            int[] free = freeColumns(mod.pivotColumn());
+            Rational[][] val = ExactBacksolve.solve(distinct, unknowns.size(), free, progress);
+            if (val != null) {
+                return toSolution(val, free);
+            }
+        }
+        throw new ContourException("internal error: the exact check failed for every modulus tried");
+    }
+
+    private Solution toSolution(Rational[][] val, int[] free) {
+        if (free.length == 0) {
+            return new Solution.Unique(unknowns, Arrays.stream(val).map(v -> v[0]).toList());
+        }
+        List<String> names = Arrays.stream(free).mapToObj(unknowns::get).toList();
+        return new Solution.Family(unknowns, names, Arrays.stream(val).map(Arrays::asList).toList());
+    }
+
+    private static int[] freeColumns(boolean[] pivot) {
+        int n = 0;
+        for (boolean b : pivot) {
+            n += b ? 0 : 1;
+        }
+        int[] free = new int[n];
+        for (int c = 0, k = 0; c < pivot.length; c++) {
+            if (!pivot[c]) {
+                free[k++] = c;
+            }
+        }
+        return free;
+    }
+
+    /**
+     * Shrinks the set of constraints to one that is still inconsistent but loses that property
+     * when any member is dropped (deletion filter, checked modulo a prime), then proves the
+     * contradiction of that set over Q.
+     */
+    private Solution conflict(long prime) {
+        Set<Integer> keep = new LinkedHashSet<>();
+        for (IntegerRow r : rows) {
+            keep.add(r.tag);
+        }
+        for (Integer tag : List.copyOf(keep)) {
+            keep.remove(tag);
+            if (ModularElimination.run(rowsOf(keep), unknowns.size(), prime, SolveProgress.silent()).consistent()) {
+                keep.add(tag);
+            }
+        }
+        if (!ExactInconsistency.holds(rowsOf(keep))) {
+            throw new ContourException("internal error: a modular contradiction did not hold over Q");
+        }
+        List<Integer> tags = keep.stream().sorted().toList();
+        return new Solution.Inconsistent(unknowns, tags.stream().map(spans::get).toList(),
+                tags.stream().map(labels::get).toList());
+    }
+
+    private List<IntegerRow> rowsOf(Set<Integer> tags) {
+        return distinct(rows.stream().filter(r -> tags.contains(r.tag)).toList());
+    }
+
+    /** Drops repeated equations (pieces of a large ansatz produce many identical rows). */
+    private static List<IntegerRow> distinct(List<IntegerRow> all) {
+        Map<Integer, List<IntegerRow>> seen = new HashMap<>(all.size() * 2);
+        List<IntegerRow> out = new ArrayList<>();
+        for (IntegerRow r : all) {
+            List<IntegerRow> same = seen.computeIfAbsent(r.equationHash(), h -> new ArrayList<>(1));
+            boolean dup = false;
+            for (IntegerRow s : same) {
+                if (s.sameEquation(r)) {
+                    dup = true;
+                    break;
+                }
+            }
+            if (!dup) {
+                same.add(r);
+                out.add(r);
+            }
+        }
+        return out;
+    }
+
+    /** Exact Gaussian elimination over Q that only answers whether the rows contradict each other. */
+    private static final class ExactInconsistency {
+        static boolean holds(List<IntegerRow> rows) {
+            List<TreeMap<Integer, BigInteger>> lhs = new ArrayList<>();
+            List<BigInteger> rhs = new ArrayList<>();
+            for (IntegerRow r : rows) {
+                TreeMap<Integer, BigInteger> m = new TreeMap<>();
+                for (int i = 0; i < r.length(); i++) {
+                    m.put(r.cols[i], r.coefficient(i));
+                }
+                lhs.add(m);
+                rhs.add(r.rhs);
+            }
+            for (int p = 0; p < lhs.size(); p++) {
+                TreeMap<Integer, BigInteger> piv = lhs.get(p);
+                if (piv.isEmpty()) {
+                    if (rhs.get(p).signum() != 0) {
+                        return true;
+                    }
+                    continue;
+                }
+                int c = piv.firstKey();
+                BigInteger a = piv.get(c);
+                for (int r = p + 1; r < lhs.size(); r++) {
+                    BigInteger b = lhs.get(r).get(c);
+                    if (b == null) {
+                        continue;
+                    }
+                    // fraction-free: row_r = a * row_r - b * row_p
+                    TreeMap<Integer, BigInteger> m = new TreeMap<>();
+                    lhs.get(r).forEach((col, v) -> m.merge(col, v.multiply(a), BigInteger::add));
+                    piv.forEach((col, v) -> m.merge(col, v.multiply(b).negate(), BigInteger::add));
+                    m.values().removeIf(v -> v.signum() == 0);
+                    lhs.set(r, m);
+                    rhs.set(r, rhs.get(r).multiply(a).subtract(rhs.get(p).multiply(b)));
+                }
+            }
+            return false;
+        }
+    }
+}
