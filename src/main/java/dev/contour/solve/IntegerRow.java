@@ -41,6 +41,10 @@ final class IntegerRow {
 
     /** The primitive integer row of sum vals[i] x_cols[i] = rhs; cols sorted, distinct, vals non-zero. Null for 0 = 0. */
     static IntegerRow of(int[] cols, Rational[] vals, Rational rhs, int tag) {
+        IntegerRow quick = small(cols, vals, rhs, tag);
+        if (quick != null) {
+            return quick;
+        }
         BigInteger lcm = rhs.denominator();
         for (Rational v : vals) {
             lcm = lcm(lcm, v.denominator());
@@ -73,6 +77,47 @@ final class IntegerRow {
             s[i] = ints[i].longValue();
         }
         return new IntegerRow(cols, s, null, b, tag);
+    }
+
+    /** The same in word arithmetic for a homogeneous row of small rationals; null when it does not apply. */
+    private static IntegerRow small(int[] cols, Rational[] vals, Rational rhs, int tag) {
+        if (!rhs.isZero() || vals.length == 0) {
+            return null;
+        }
+        try {
+            long lcm = 1;
+            for (Rational v : vals) {
+                if (v.denominator().bitLength() > 62 || v.numerator().bitLength() > 62) {
+                    return null;
+                }
+                long d = v.denominator().longValue();
+                lcm = Math.multiplyExact(lcm / gcd(lcm, d), d);
+            }
+            long[] ints = new long[vals.length];
+            long g = 0;
+            for (int i = 0; i < vals.length; i++) {
+                ints[i] = Math.multiplyExact(vals[i].numerator().longValue(), lcm / vals[i].denominator().longValue());
+                g = gcd(g, Math.abs(ints[i]));
+            }
+            if (ints[0] < 0) {
+                g = -g;
+            }
+            for (int i = 0; i < ints.length; i++) {
+                ints[i] /= g;
+            }
+            return new IntegerRow(cols, ints, null, BigInteger.ZERO, tag);
+        } catch (ArithmeticException overflow) {
+            return null;
+        }
+    }
+
+    private static long gcd(long a, long b) {
+        while (b != 0) {
+            long r = a % b;
+            a = b;
+            b = r;
+        }
+        return Math.abs(a);
     }
 
     private static BigInteger lcm(BigInteger a, BigInteger b) {

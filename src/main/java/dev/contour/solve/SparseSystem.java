@@ -18,13 +18,11 @@ import java.util.TreeMap;
  * (and source span) that produced them, solved exactly.
  *
  * <p>Why not {@link dev.contour.algebra.LinearSystem}: ansatz systems reach 10^5 unknowns and 10^6
- * equations with two to five entries each. Solving them needs a modular pass for the rank and pivot
- * structure, exact propagation with a final check over Q, and conflict analysis by constraint; those
- * are specific to constraint solving and live here. The result is exact: see {@link ExactBacksolve}.
+ * equations with two to five entries each, in a lattice pattern. General pivoting elimination fills
+ * them in; exact propagation along the lattice ({@link ExactPropagation}) does not, and the
+ * conflict analysis by constraint is specific to solving constraints.
  */
 public final class SparseSystem {
-    /** Word-sized primes below 2^31, so products of residues fit in a long. */
-    private static final long[] PRIMES = {2147483629L, 2147483587L, 2147483579L, 2147483563L, 2147483549L};
 
     private final List<String> unknowns;
     private final List<Span> spans = new ArrayList<>();
@@ -71,8 +69,18 @@ public final class SparseSystem {
         }
         IntegerRow row = IntegerRow.of(cols, vals, rhs, tag);
         if (row != null) {
-            synchronized (rows) {
-                rows.add(row);
+            rows.add(row);
+        }
+    }
+
+    /** Adds prepared rows in order (nulls, the trivial equations, are skipped). */
+    void addRows(List<IntegerRow> prepared) {
+        for (IntegerRow r : prepared) {
+            if (r != null) {
+                if (r.tag < 0 || r.tag >= spans.size()) {
+                    throw new ContourException("unknown constraint tag " + r.tag);
+                }
+                rows.add(r);
             }
         }
     }
@@ -88,18 +96,11 @@ public final class SparseSystem {
     public Solution solve(SolveProgress progress) {
         List<IntegerRow> distinct = distinct(rows);
         progress.generated(distinct.size());
-        for (long prime : PRIMES) {
-            ModularElimination.Result mod = ModularElimination.run(distinct, unknowns.size(), prime, progress);
-            if (!mod.consistent()) {
-                return conflict(prime);
-            }
-            int[] free = freeColumns(mod.pivotColumn());
-            Rational[][] val = ExactBacksolve.solve(distinct, unknowns.size(), free, progress);
-            if (val != null) {
-                return toSolution(val, free);
-            }
+        ExactPropagation.Outcome out = ExactPropagation.solve(distinct, unknowns.size(), progress);
+        if (!out.consistent()) {
+            return conflict();
         }
-        throw new ContourException("internal error: the exact check failed for every modulus tried");
+        return toSolution(out.values(), out.free());
     }
 
     private Solution toSolution(Rational[][] val, int[] free) {
@@ -125,23 +126,19 @@ public final class SparseSystem {
     }
 
     /**
-     * Shrinks the set of constraints to one that is still inconsistent but loses that property
-     * when any member is dropped (deletion filter, checked modulo a prime), then proves the
-     * contradiction of that set over Q.
+     * Shrinks the set of constraints to one that is still inconsistent but becomes consistent when
+     * any member is dropped (a deletion filter; every check is exact).
      */
-    private Solution conflict(long prime) {
+    private Solution conflict() {
         Set<Integer> keep = new LinkedHashSet<>();
         for (IntegerRow r : rows) {
             keep.add(r.tag);
         }
         for (Integer tag : List.copyOf(keep)) {
             keep.remove(tag);
-            if (ModularElimination.run(rowsOf(keep), unknowns.size(), prime, SolveProgress.silent()).consistent()) {
+            if (ExactPropagation.solve(rowsOf(keep), unknowns.size(), SolveProgress.silent()).consistent()) {
                 keep.add(tag);
             }
-        }
-        if (!ExactInconsistency.holds(rowsOf(keep))) {
-            throw new ContourException("internal error: a modular contradiction did not hold over Q");
         }
         List<Integer> tags = keep.stream().sorted().toList();
         return new Solution.Inconsistent(unknowns, tags.stream().map(spans::get).toList(),
@@ -171,46 +168,5 @@ public final class SparseSystem {
             }
         }
         return out;
-    }
-
-    /** Exact Gaussian elimination over Q that only answers whether the rows contradict each other. */
-    private static final class ExactInconsistency {
-        static boolean holds(List<IntegerRow> rows) {
-            List<TreeMap<Integer, BigInteger>> lhs = new ArrayList<>();
-            List<BigInteger> rhs = new ArrayList<>();
-            for (IntegerRow r : rows) {
-                TreeMap<Integer, BigInteger> m = new TreeMap<>();
-                for (int i = 0; i < r.length(); i++) {
-                    m.put(r.cols[i], r.coefficient(i));
-                }
-                lhs.add(m);
-                rhs.add(r.rhs);
-            }
-            for (int p = 0; p < lhs.size(); p++) {
-                TreeMap<Integer, BigInteger> piv = lhs.get(p);
-                if (piv.isEmpty()) {
-                    if (rhs.get(p).signum() != 0) {
-                        return true;
-                    }
-                    continue;
-                }
-                int c = piv.firstKey();
-                BigInteger a = piv.get(c);
-                for (int r = p + 1; r < lhs.size(); r++) {
-                    BigInteger b = lhs.get(r).get(c);
-                    if (b == null) {
-                        continue;
-                    }
-                    // fraction-free: row_r = a * row_r - b * row_p
-                    TreeMap<Integer, BigInteger> m = new TreeMap<>();
-                    lhs.get(r).forEach((col, v) -> m.merge(col, v.multiply(a), BigInteger::add));
-                    piv.forEach((col, v) -> m.merge(col, v.multiply(b).negate(), BigInteger::add));
-                    m.values().removeIf(v -> v.signum() == 0);
-                    lhs.set(r, m);
-                    rhs.set(r, rhs.get(r).multiply(a).subtract(rhs.get(p).multiply(b)));
-                }
-            }
-            return false;
-        }
     }
 }

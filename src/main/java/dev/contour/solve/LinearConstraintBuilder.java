@@ -1,0 +1,196 @@
+package dev.contour.solve;
+
+import dev.contour.algebra.Monomial;
+import dev.contour.algebra.Rational;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.concurrent.atomic.AtomicLong;
+import java.util.stream.IntStream;
+
+/**
+ * Turns constraints into the sparse linear system of their equations over Q.
+ *
+ * <p>Each constraint is applied to every piece independently (in parallel, in chunks on the common
+ * fork-join pool); a piece's contributions are keyed by equation (collected monomial plus the
+ * expansion path that produced the number) and the rows are assembled sparsely by summing the
+ * contributions under each key.
+ */
+public final class LinearConstraintBuilder {
+    private static final int CHUNK = 256;
+
+    private final List<String> unknowns;
+    private final List<Constraint> constraints = new ArrayList<>();
+
+    public LinearConstraintBuilder(List<String> unknowns) {
+        this.unknowns = List.copyOf(unknowns);
+    }
+
+    public LinearConstraintBuilder add(Constraint c) {
+        constraints.add(c);
+        return this;
+    }
+
+    public List<String> unknowns() {
+        return unknowns;
+    }
+
+    /** The equations of all constraints. */
+    public SparseSystem build(SolveProgress progress) {
+        SparseSystem system = new SparseSystem(unknowns);
+        AtomicLong generated = new AtomicLong();
+        for (Constraint c : constraints) {
+            int tag = system.constraint(c.span, c.label);
+            Map<Object, Accumulator> rows = collect(c, progress, generated);
+            // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
+            system.addRows(new ArrayList<>(rows.values()).parallelStream().map(acc -> acc.toRow(tag)).toList());
+        }
+        return system;
+    }
+
+    /** Builds and solves. */
+    public Solution solve(SolveProgress progress) {
+        return build(progress).solve(progress);
+    }
+
+    private Map<Object, Accumulator> collect(Constraint c, SolveProgress progress, AtomicLong generated) {
+        Constraint.PieceSource src = c.source;
+        List<String> vars = src.variables();
+        Applier apply = applier(c.condition, vars);
+        int n = src.count();
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        List<Map<Object, Accumulator>> parts = IntStream.range(0, chunks).parallel().mapToObj(k -> {
+            Map<Object, Accumulator> local = new HashMap<>();
+            for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
+                Piece piece = src.piece(i);
+                int col = piece.column;
+                for (int j = 0; j < piece.terms.size(); j++) {
+                    Monomial m = piece.monomials.get(j);
+                    apply.to(piece.terms.get(j), m, (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+                }
+            }
+            progress.generated(generated.addAndGet(local.size()));
+            return local;
+        }).toList();
+        Map<Object, Accumulator> all = parts.isEmpty() ? new HashMap<>() : parts.get(0);
+        for (int k = 1; k < parts.size(); k++) {
+            parts.get(k).forEach((key, acc) -> all.merge(key, acc, Accumulator::merge));
+        }
+        return all;
+    }
+
+    /** Applies a condition to one factored term under a root key. */
+    private interface Applier {
+        void to(FactoredTerm t, Object root, TermConditions.Sink sink);
+    }
+
+    private static Applier applier(Constraint.Condition cond, List<String> vars) {
+        if (cond instanceof Constraint.Vanishes) {
+            return (t, root, sink) -> TermConditions.vanish(vars, t, root, sink);
+        }
+        if (cond instanceof Constraint.PolynomialIn p) {
+            boolean[] mask = mask(vars, p.variables());
+            return (t, root, sink) -> TermConditions.polynomialIn(vars, mask, t, root, sink);
+        }
+        if (cond instanceof Constraint.ResiduesPolynomial r) {
+            List<TermConditions.PoleFamily> fams = r.poles().stream().map(p -> family(p, vars)).toList();
+            return (t, root, sink) -> TermConditions.residuesPolynomial(vars, fams, r.simple(), t, root, sink);
+        }
+        if (cond instanceof Constraint.PolesOnlyAt p) {
+            TermConditions.PoleFamily fam = family(p.poles(), vars);
+            return (t, root, sink) -> TermConditions.polesOnlyAt(vars, fam, t, root, sink);
+        }
+        Constraint.GrowthAtMost g = (Constraint.GrowthAtMost) cond;
+        boolean[] mask = mask(vars, g.variables());
+        return (t, root, sink) -> TermConditions.growthAtMost(vars, mask, g.degree(), t, root, sink);
+    }
+
+    private static TermConditions.PoleFamily family(Constraint.Poles p, List<String> vars) {
+        LinearForm f = LinearForm.of(p.form(), vars);
+        if (f.isConstant()) {
+            throw new dev.contour.ContourException("the pole variable " + p.name() + " = " + p.form() + " is constant");
+        }
+        return new TermConditions.PoleFamily(f, p.allowed());
+    }
+
+    private static boolean[] mask(List<String> vars, List<String> chosen) {
+        boolean[] m = new boolean[vars.size()];
+        for (String v : chosen) {
+            int i = vars.indexOf(v);
+            if (i >= 0) {
+                m[i] = true;
+            }
+        }
+        return m;
+    }
+
+    /** Contributions to one equation: column to summed value (-1 is the part free of unknowns). */
+    private static final class Accumulator {
+        private int[] cols = new int[2];
+        private Rational[] vals = new Rational[2];
+        private int size;
+
+        void add(int col, Rational v) {
+            for (int i = 0; i < size; i++) {
+                if (cols[i] == col) {
+                    vals[i] = vals[i].add(v);
+                    return;
+                }
+            }
+            if (size == cols.length) {
+                cols = Arrays.copyOf(cols, size * 2);
+                vals = Arrays.copyOf(vals, size * 2);
+            }
+            cols[size] = col;
+            vals[size++] = v;
+        }
+
+        Accumulator merge(Accumulator o) {
+            for (int i = 0; i < o.size; i++) {
+                add(o.cols[i], o.vals[i]);
+            }
+            return this;
+        }
+
+        IntegerRow toRow(int tag) {
+            // insertion sort by column: accumulators are short
+            for (int i = 1; i < size; i++) {
+                for (int j = i; j > 0 && cols[j - 1] > cols[j]; j--) {
+                    int c = cols[j];
+                    cols[j] = cols[j - 1];
+                    cols[j - 1] = c;
+                    Rational v = vals[j];
+                    vals[j] = vals[j - 1];
+                    vals[j - 1] = v;
+                }
+            }
+            Rational rhs = Rational.ZERO;
+            int n = 0;
+            for (int i = 0; i < size; i++) {
+                if (!vals[i].isZero() && cols[i] >= 0) {
+                    n++;
+                }
+            }
+            int[] cs = new int[n];
+            Rational[] vs = new Rational[n];
+            n = 0;
+            for (int i = 0; i < size; i++) {
+                if (vals[i].isZero()) {
+                    continue;
+                }
+                if (cols[i] < 0) {
+                    rhs = vals[i].negate();
+                } else {
+                    cs[n] = cols[i];
+                    vs[n++] = vals[i];
+                }
+            }
+            if (n == 0 && rhs.isZero()) {
+                return null;
+            }
+            return IntegerRow.of(cs, vs, rhs, tag);
+        }
+    }
+}
