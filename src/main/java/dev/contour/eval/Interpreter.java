@@ -163,10 +163,11 @@ public final class Interpreter {
             Value value = eval(l.value());
             globals.put(l.name(), value);
             if (fileDepth == 0) {
-                String text = display.scriptText(value);
-                log.add(SessionLog.Kind.LET, l.name(), text == null
-                        ? "# let " + l.name() + " = <" + value.kind() + ">  (not saved: no script form)"
-                        : "let " + l.name() + " = " + text);
+                log.addLazily(SessionLog.Kind.LET, l.name(), () -> {
+                    String text = display.scriptText(value);
+                    return text == null ? "# let " + l.name() + " = <" + value.kind() + ">  (not saved: no script form)"
+                            : "let " + l.name() + " = " + text;
+                });
             }
         } else if (s instanceof Stmt.Def d) {
             checkFreeName(d.name(), d.span(), true);
@@ -372,6 +373,9 @@ public final class Interpreter {
             return name(n);
         }
         if (e instanceof Expr.Binary b) {
+            if (b.operator() == Expr.Operator.DIVIDE && isProduct(b.right())) {
+                return divideByFactors(eval(b.left()), b);
+            }
             return Arithmetic.binary(b.operator(), eval(b.left()), eval(b.right()), b.span(), options.limits());
         }
         if (e instanceof Expr.Negate n) {
@@ -423,6 +427,45 @@ public final class Interpreter {
             throw new ContourException("pattern variables such as '@" + v.name() + "' belong in rules", v.span());
         }
         throw new IllegalStateException("interpreter: unhandled expression " + e.getClass().getSimpleName());
+    }
+
+    private static boolean isProduct(Expr e) {
+        return e instanceof Expr.Binary b && b.operator() == Expr.Operator.MULTIPLY;
+    }
+
+    /**
+     * {@code a / (f1 * f2 * ...)} divides by one factor at a time: the same exact value, but each
+     * step divides by a small (often linear) factor the canonical form keeps as it is, instead of
+     * multiplying the factors out and having to factor the product again.
+     */
+    private Value divideByFactors(Value dividend, Expr.Binary division) {
+        List<Expr> factors = new ArrayList<>();
+        flattenProduct(division.right(), factors);
+        List<Value> values = new ArrayList<>();
+        for (Expr f : factors) {
+            values.add(eval(f));
+        }
+        Value result = dividend;
+        if (values.stream().allMatch(v -> v instanceof ExprValue)) {
+            for (Value v : values) {
+                result = Arithmetic.binary(Expr.Operator.DIVIDE, result, v, division.span(), options.limits());
+            }
+            return result;
+        }
+        Value divisor = values.get(0);
+        for (int i = 1; i < values.size(); i++) {
+            divisor = Arithmetic.binary(Expr.Operator.MULTIPLY, divisor, values.get(i), division.right().span(), options.limits());
+        }
+        return Arithmetic.binary(Expr.Operator.DIVIDE, result, divisor, division.span(), options.limits());
+    }
+
+    private static void flattenProduct(Expr e, List<Expr> out) {
+        if (isProduct(e)) {
+            flattenProduct(((Expr.Binary) e).left(), out);
+            flattenProduct(((Expr.Binary) e).right(), out);
+        } else {
+            out.add(e);
+        }
     }
 
     private Value name(Expr.Name n) {

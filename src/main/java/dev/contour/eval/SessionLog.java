@@ -2,6 +2,7 @@ package dev.contour.eval;
 
 import java.util.ArrayList;
 import java.util.List;
+import java.util.function.Supplier;
 
 /**
  * The definitions of a session in the order they happened, re-emitted as script text. A
@@ -11,11 +12,16 @@ import java.util.List;
 final class SessionLog {
     enum Kind { VARS, LET, OTHER }
 
-    private record Entry(Kind kind, String name, String text) { }
+    /** One definition; the text is rendered only when the script is asked for (values can be large). */
+    private record Entry(Kind kind, String name, Supplier<String> text) { }
 
     private final List<Entry> entries = new ArrayList<>();
 
     void add(Kind kind, String name, String text) {
+        entries.add(new Entry(kind, name, () -> text));
+    }
+
+    void addLazily(Kind kind, String name, Supplier<String> text) {
         entries.add(new Entry(kind, name, text));
     }
 
@@ -26,7 +32,7 @@ final class SessionLog {
             if (e.kind() == Kind.LET && supersededLater(i)) {
                 continue;
             }
-            out.append(e.text()).append('\n');
+            out.append(e.text().get()).append('\n');
         }
         return out.toString();
     }

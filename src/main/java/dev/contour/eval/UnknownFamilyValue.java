@@ -3,7 +3,9 @@ package dev.contour.eval;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
+import java.util.Set;
 import java.util.List;
 import java.util.Map;
 import java.util.stream.Collectors;
@@ -12,11 +14,39 @@ import java.util.stream.Collectors;
  * An indexed family of unknowns from {@code unknown a[i, j] with ...}: each member is a collected
  * variable named like {@code a[0,1]}, recorded for the solver.
  */
-public record UnknownFamilyValue(String name, List<String> indexNames, List<List<Integer>> members, String description)
-        implements Value {
-    public UnknownFamilyValue {
-        indexNames = List.copyOf(indexNames);
-        members = members.stream().map(List::copyOf).toList();
+public final class UnknownFamilyValue implements Value {
+    private final String name;
+    private final List<String> indexNames;
+    private final List<List<Integer>> members;
+    private final Set<List<Integer>> memberSet;
+    private final String description;
+
+    /**
+     * @param members     the index tuples in declaration order
+     * @param description the family as declared, for error messages ({@code a[i, j] with i + j = 2})
+     */
+    public UnknownFamilyValue(String name, List<String> indexNames, List<List<Integer>> members, String description) {
+        this.name = name;
+        this.indexNames = List.copyOf(indexNames);
+        this.members = members.stream().map(List::copyOf).toList();
+        this.memberSet = new HashSet<>(this.members);
+        this.description = description;
+    }
+
+    public String name() {
+        return name;
+    }
+
+    public List<String> indexNames() {
+        return indexNames;
+    }
+
+    public List<List<Integer>> members() {
+        return members;
+    }
+
+    public String description() {
+        return description;
     }
 
     /** The variable name of one member: {@code a[0,1,0]}. */
@@ -43,7 +73,7 @@ public record UnknownFamilyValue(String name, List<String> indexNames, List<List
         if (indices.size() != indexNames.size()) {
             throw new ContourException(name + " takes " + indexNames.size() + " indices, not " + indices.size(), span);
         }
-        if (!members.contains(indices)) {
+        if (!memberSet.contains(indices)) {
             throw new ContourException(memberName(name, indices) + " is not in the family " + description, span);
         }
         return Expression.collectedVariable(memberName(name, indices));
@@ -52,5 +82,21 @@ public record UnknownFamilyValue(String name, List<String> indexNames, List<List
     @Override
     public String kind() {
         return "unknown family";
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof UnknownFamilyValue u && u.name.equals(name) && u.indexNames.equals(indexNames)
+                && u.members.equals(members);
+    }
+
+    @Override
+    public int hashCode() {
+        return name.hashCode() * 31 + members.hashCode();
+    }
+
+    @Override
+    public String toString() {
+        return "UnknownFamilyValue[" + description + "]";
     }
 }
