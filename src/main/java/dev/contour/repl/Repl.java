@@ -13,6 +13,7 @@ import org.jline.reader.EndOfFileException;
 import org.jline.reader.LineReader;
 import org.jline.reader.LineReaderBuilder;
 import org.jline.reader.UserInterruptException;
+import org.jline.terminal.Size;
 import org.jline.terminal.Terminal;
 
 /**
@@ -32,6 +33,10 @@ public final class Repl {
      * @return the session's exit code
      */
     public static int onTerminal(Terminal terminal, ReplSettings settings, Consumer<Session> prepare) {
+        if (terminal.getWidth() <= 0) {
+            // Some hosts (a pty without a window size) report 0 columns, and JLine cannot lay out a prompt in none.
+            terminal.setSize(new Size(80, Math.max(terminal.getHeight(), 24)));
+        }
         PrintStream out = new PrintStream(terminal.output(), true, terminal.encoding());
         Session session = new Session(settings, out, out);
         LineReaderBuilder builder = LineReaderBuilder.builder()

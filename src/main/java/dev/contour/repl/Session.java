@@ -61,7 +61,22 @@ public final class Session {
     private boolean anyError;
     private boolean anyCheckFailed;
 
-    private record Past(String text, String fileName) { }
+    /**
+     * An input as typed (or a file's text) and where it goes: for session input the padded
+     * script text is rebuilt on demand, so a long session does not keep every padding around.
+     */
+    private record Past(String text, String fileName, int start, boolean bare) {
+        String script() {
+            if (start == 0) {
+                return text;
+            }
+            // A bare expression is shown as if typed after 'show'. The word goes on the padding
+            // line above the input so that columns stay as typed; on line 1 there is no room above.
+            return bare && start == 1 ? "show " + text
+                    : bare ? "\n".repeat(start - 2) + "show\n" + text
+                    : "\n".repeat(start - 1) + text;
+        }
+    }
 
     /**
      * @param out where results go
@@ -119,24 +134,16 @@ public final class Session {
         if (isCommand(input)) {
             return command(input.strip(), start);
         }
-        boolean bare = isBareExpression(input);
-        // A bare expression is shown as if typed after 'show'. The word goes on the padding line
-        // above the input so that columns stay as typed; on the first line there is no room above.
-        String text = bare && start == 1 ? "show " + input
-                : bare ? "\n".repeat(start - 2) + "show\n" + input
-                : "\n".repeat(start - 1) + input;
-        execute(text, FILE, bare ? start : 0);
+        execute(new Past(input, FILE, start, isBareExpression(input)));
         return true;
     }
 
     // ---------------------------------------------------------------- running code
 
-    /**
-     * Runs a script text in the session's interpreter on the worker.
-     *
-     * @param bareStart the input's first line if it is a bare expression (its spans need mapping back), else 0
-     */
-    private void execute(String text, String fileName, int bareStart) {
+    /** Runs an input in the session's interpreter on the worker and reports how it went. */
+    private void execute(Past input) {
+        String text = input.script();
+        String fileName = input.fileName();
         Interpreter target = interpreter;
         RunResult[] result = new RunResult[1];
         Evaluation.Outcome outcome = evaluation.run(() -> result[0] = target.run(text, fileName));
@@ -156,11 +163,11 @@ public final class Session {
             }
             case FINISHED -> { }
         }
-        past.add(new Past(text, fileName));
+        past.add(input);
         if (failure == null) {
             anyCheckFailed |= !result[0].ok();
         } else {
-            report(failure, text, fileName, bareStart);
+            report(failure, text, fileName, input.bare() ? input.start() : 0);
         }
     }
 
@@ -222,7 +229,7 @@ public final class Session {
         }
         for (int i = 0; i < past.size(); i++) {
             Past p = past.get(i);
-            if (evaluation.run(() -> fresh.run(p.text(), p.fileName())) != Evaluation.Outcome.FINISHED) {
+            if (evaluation.run(() -> fresh.run(p.script(), p.fileName())) != Evaluation.Outcome.FINISHED) {
                 err.println("interrupted again: the session keeps the first " + i + " of its " + past.size() + " earlier inputs");
                 past.subList(i, past.size()).clear();
                 break;
@@ -344,7 +351,7 @@ public final class Session {
         } catch (IOException | RuntimeException e) {
             throw new ContourException("cannot read '" + file + "': " + describe(e), where);
         }
-        execute(text, file.toString(), 0);
+        execute(new Past(text, file.toString(), 0, false));
     }
 
     private static String describe(Exception e) {
