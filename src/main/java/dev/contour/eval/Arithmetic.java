@@ -3,6 +3,7 @@ package dev.contour.eval;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
+import dev.contour.algebra.Rational;
 import dev.contour.lang.Expr.Operator;
 import dev.contour.term.Term;
 import dev.contour.term.Terms;
@@ -92,6 +93,9 @@ public final class Arithmetic {
     }
 
     private static Expression expressions(Operator op, Expression a, Expression b, Span span, EvaluationLimits limits) {
+        if (a.isConstant() && b.isConstant() && op != Operator.POWER) {
+            return numbers(op, a.constantValue(), b.constantValue(), span);
+        }
         return switch (op) {
             case ADD -> a.add(b);
             case SUBTRACT -> a.subtract(b);
@@ -144,6 +148,22 @@ public final class Arithmetic {
     private static boolean isMonomialCoefficient(Expression a) {
         var c = a.terms().values().iterator().next();
         return c.numerator().termCount() == 1 && c.denominatorFactors().size() <= 1;
+    }
+
+    /** Index arithmetic such as {@code 2*k + 1} runs in sums' inner loops: keep it on plain rationals. */
+    private static Expression numbers(Operator op, Rational a, Rational b, Span span) {
+        return Values.constant(switch (op) {
+            case ADD -> a.add(b);
+            case SUBTRACT -> a.subtract(b);
+            case MULTIPLY -> a.multiply(b);
+            case DIVIDE -> {
+                if (b.isZero()) {
+                    throw new ContourException("division by zero", span);
+                }
+                yield a.divide(b);
+            }
+            case POWER -> throw new IllegalArgumentException("powers take the general path");
+        });
     }
 
     private static Value terms(Operator op, Term a, Value right, Span span, EvaluationLimits limits) {

@@ -38,8 +38,28 @@ public final class Values {
         return (k.matches("^[aeiou].*") ? "an " : "a ") + k;
     }
 
-    /** Wraps an exact integer. */
+    private static final int CACHED_MIN = -64;
+    private static final ExprValue[] SMALL = new ExprValue[1024 - CACHED_MIN];
+
+    /** Wraps an exact integer (small ones are shared: sums and loops bind indices to them constantly). */
     public static ExprValue of(long n) {
+        if (n >= CACHED_MIN && n < CACHED_MIN + SMALL.length) {
+            int i = (int) (n - CACHED_MIN);
+            ExprValue v = SMALL[i];
+            if (v == null) {
+                v = new ExprValue(Expression.constant(n));
+                SMALL[i] = v;
+            }
+            return v;
+        }
         return new ExprValue(Expression.constant(n));
+    }
+
+    /** The constant expression with value r, shared for small integers. */
+    static Expression constant(Rational r) {
+        if (r.isInteger() && r.numerator().bitLength() < 31) {
+            return of(r.intValueExact()).value();
+        }
+        return Expression.constant(r);
     }
 }
