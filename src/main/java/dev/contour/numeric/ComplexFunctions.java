@@ -20,7 +20,7 @@ import org.apfloat.Apint;
  *
  * <p>Why not apfloat's own exp, log and gamma: at 20-40 digits they cost milliseconds per call
  * (apfloat is tuned for very high precision), and a two-variable integral needs tens of thousands
- * of values. Here exp is a reduced Taylor series with repeated squaring, log is Newton's iteration on
+ * of values. Here exp is a reduced Taylor series with repeated squaring, log is Halley's iteration on
  * exp from a double-precision start, and Gamma is Stirling's series after an upward shift; each
  * costs tens of multiplications. Tests compare them with apfloat's versions.
  */
@@ -168,9 +168,11 @@ public final class ComplexFunctions {
         double a = y.real().doubleValue();
         double b = y.imag().doubleValue();
         Apcomplex w = new Apcomplex(new Apfloat(Math.log(Math.hypot(a, b)), g), new Apfloat(Math.atan2(b, a), g));
-        // Newton on exp(w) = y doubles the 15 digits of the double start at each step.
-        for (long digits = 15; digits < g + 2; digits *= 2) {
-            w = w.add(y.multiply(exp(w.negate(), g))).subtract(Apcomplex.ONE);
+        // Halley's iteration on exp(w) = y, w += 2 (y - e^w) / (y + e^w), triples the 15 digits of
+        // the double start at each step (common practice): one exponential up to 45 digits.
+        for (long digits = 15; digits < g + 2; digits *= 3) {
+            Apcomplex e = exp(w, g);
+            w = w.add(new Apint(2).multiply(y.subtract(e)).divide(y.add(e)));
         }
         return w.add(shift).precision(p + Math.max(0, w.add(shift).scale()));
     }

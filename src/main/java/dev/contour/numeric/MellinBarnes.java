@@ -27,7 +27,8 @@ import org.apfloat.Apint;
  * half-width d about the contour the error falls like exp(-2 pi d / h) (common practice; see
  * Trefethen and Weideman, SIAM Rev. 56 (2014) 385). Steps are exact decimals (so the grid of s + t
  * repeats values of s and t, and memoised Gamma factors are reused, see {@link GridMemo}): 0.8, 0.4,
- * 0.2, then steps chosen from the fitted error model to reach the requested digits. A line of the
+ * 0.2, then steps chosen from the fitted error model to reach the requested digits (shrinking by at
+ * most a factor 2.5 per level). A line of the
  * grid is summed outward from its peak until the integrand has stayed below 10^-(digits+4) of its
  * largest value for one unit of Im s; the neglected tail is estimated by geometric extrapolation.
  *
@@ -48,6 +49,7 @@ public final class MellinBarnes {
     private static final int CUT_EXTRA_DIGITS = 4;
     private static final double SAFETY_DIGITS = 1;
     private static final double SLOPE_TRUST = 0.85;
+    private static final double MAX_STEP_RATIO = 2.5;
 
     /** The precision (significant digits) at which integrands are evaluated for {@code digits}. */
     public static long workingPrecision(int digits) {
@@ -302,10 +304,11 @@ public final class MellinBarnes {
                 }
                 // Aim half a digit past the target from the model's error at this level, at least two
                 // digits past this level (so the next difference measures this level's error), and
-                // shrink the step by at most a factor 4.
+                // shrink the step by at most a factor 2.5: a longer jump from a badly calibrated model
+                // tends to need another level nearly as costly as itself.
                 double here = model - SAFETY_DIGITS;
                 double gain = Math.max(here - (target - SAFETY_DIGITS - 0.5), 2);
-                double next = Math.max(steps.get(j) / 4, 1 / (1 / steps.get(j) + gain / slope));
+                double next = Math.max(steps.get(j) / MAX_STEP_RATIO, 1 / (1 / steps.get(j) + gain / slope));
                 h = new BigDecimal(next).round(new MathContext(2, RoundingMode.DOWN));
             }
             throw notReached("within " + MAX_LEVELS + " refinement levels");
