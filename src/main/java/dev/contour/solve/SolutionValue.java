@@ -1,0 +1,79 @@
+package dev.contour.solve;
+
+import dev.contour.ContourException;
+import dev.contour.Span;
+import dev.contour.algebra.Expression;
+import dev.contour.algebra.Rational;
+import dev.contour.eval.BindingValue;
+import dev.contour.eval.ExprValue;
+import dev.contour.eval.ListValue;
+import dev.contour.eval.OutputFormat;
+import dev.contour.eval.Value;
+import dev.contour.eval.Values;
+import dev.contour.print.PlainPrinter;
+import java.util.List;
+import java.util.Map;
+
+/** The language's view of a {@link Solution}: applied with {@code EXPR with sol}, shown by {@code show sol}. */
+public record SolutionValue(Solution solution) implements BindingValue {
+
+    @Override
+    public String kind() {
+        return "solution";
+    }
+
+    @Override
+    public Value applyTo(Value target, Span span) {
+        if (solution instanceof Solution.Inconsistent bad) {
+            throw new ContourException("the solution is empty: " + conflictText(bad), span);
+        }
+        if (target instanceof ExprValue e) {
+            return new ExprValue(solution.substituteInto(e.value()));
+        }
+        if (target instanceof ListValue l) {
+            return new ListValue(l.items().stream().map(v -> applyTo(v, span)).toList());
+        }
+        throw new ContourException("a solution applies to expressions and lists, not to a " + target.kind(), span);
+    }
+
+    @Override
+    public BindingValue normalized(Expression member, Value value, Span span) {
+        if (member.terms().size() != 1 || member.collectedVariables().size() != 1
+                || member.terms().firstKey().totalDegree() != 1 || !member.terms().get(member.terms().firstKey()).isOne()) {
+            throw new ContourException("normalized needs a single unknown on the left", span);
+        }
+        String name = member.collectedVariables().first();
+        if (!solution.unknowns().contains(name)) {
+            throw new ContourException(name + " is not one of the unknowns solved for", span);
+        }
+        Rational v = Values.rational(value, span, "the normalisation value");
+        return new SolutionValue(solution.normalized(name, v, span));
+    }
+
+    @Override
+    public String render(OutputFormat format) {
+        if (solution instanceof Solution.Inconsistent bad) {
+            return "no solution: " + conflictText(bad);
+        }
+        StringBuilder b = new StringBuilder();
+        if (solution instanceof Solution.Family f) {
+            b.append("a family with ").append(f.dimension()).append(" free unknown").append(f.dimension() == 1 ? "" : "s")
+                    .append(" (").append(String.join(", ", f.free())).append(")");
+        } else {
+            b.append("the unique solution");
+        }
+        b.append(", ").append(solution.unknowns().size()).append(" unknown").append(solution.unknowns().size() == 1 ? "" : "s");
+        int width = solution.unknowns().stream().mapToInt(String::length).max().orElse(0);
+        for (Map.Entry<String, Expression> e : solution.assignments().entrySet()) {
+            b.append("\n    ").append(String.format("%-" + width + "s", e.getKey())).append(" = ")
+                    .append(PlainPrinter.expression(e.getValue(), false));
+        }
+        return b.toString();
+    }
+
+    static String conflictText(Solution.Inconsistent bad) {
+        List<String> lines = bad.conflicting().stream().map(s -> s.isKnown() ? String.valueOf(s.line()) : "?").toList();
+        return (lines.size() == 1 ? "the condition at line " + lines.get(0) + " is contradictory"
+                : "the conditions at lines " + String.join(", ", lines) + " already conflict");
+    }
+}
