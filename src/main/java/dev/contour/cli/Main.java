@@ -41,7 +41,8 @@ public final class Main {
             options:
               --latex          print shown values as LaTeX
               --json           print shown values and checks as JSON, one object per line
-              --rules=DIR      where 'use' looks for libraries (default: the project's rules/)
+              --rules DIR      where 'use' looks for libraries (default: the project's rules/);
+                               also --rules=DIR
               --debug          show Java detail (stack traces) on errors
               -h, --help       this help
               -V, --version    the version
@@ -63,7 +64,8 @@ public final class Main {
         Options options = new Options();
         List<String> operands = new ArrayList<>();
         boolean endOfOptions = false;
-        for (String a : rest) {
+        for (int index = 0; index < rest.size(); index++) {
+            String a = rest.get(index);
             if (endOfOptions || !a.startsWith("-") || a.equals("-")) {
                 operands.add(a);
                 continue;
@@ -73,6 +75,13 @@ public final class Main {
                 case "--latex" -> options.format = OutputFormat.LATEX;
                 case "--json" -> options.format = OutputFormat.JSON;
                 case "--debug" -> options.debug = true;
+                case "--rules" -> {
+                    if (index + 1 >= rest.size()) {
+                        err.println("contour: --rules needs a folder (--rules DIR or --rules=DIR)");
+                        return BAD_INPUT;
+                    }
+                    options.rules = Path.of(rest.get(++index));
+                }
                 case "-h", "--help" -> {
                     out.print(usage());
                     return OK;

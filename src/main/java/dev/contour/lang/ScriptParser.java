@@ -58,9 +58,13 @@ public final class ScriptParser {
      */
     private <T> T twoStage(String text, java.util.function.Function<ContourParser, T> entry) {
         try {
-            return entry.apply(parser(text, PredictionMode.SLL));
-        } catch (ContourException sllFailure) {
-            return entry.apply(parser(text, PredictionMode.LL));
+            try {
+                return entry.apply(parser(text, PredictionMode.SLL));
+            } catch (ContourException sllFailure) {
+                return entry.apply(parser(text, PredictionMode.LL));
+            }
+        } catch (StackOverflowError e) {
+            throw new ContourException("the input nests too deeply to parse", new Span(file, 1, 1, 1));
         }
     }
 

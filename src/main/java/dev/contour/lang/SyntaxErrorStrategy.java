@@ -76,6 +76,11 @@ final class SyntaxErrorStrategy extends DefaultErrorStrategy {
                     + opener.getLine() + ":" + (opener.getCharPositionInLine() + 1) + ", found " + foundText, where);
         }
         boolean statementEnd = expected.size() <= 2 && (expected.contains(Token.EOF) || expected.contains(tokenType(vocabulary, "'}'")));
+        if (statementEnd && found.getType() == ContourLexer.IDENT
+                && "=".equals(recognizer.getInputStream().LT(2) == null ? null : recognizer.getInputStream().LT(2).getText())) {
+            return new ContourException("expected a statement, found '" + found.getText() + "'; to name a value write 'let "
+                    + found.getText() + " = ...'", where);
+        }
         if (statementEnd && found.getType() != Token.EOF && !found.getText().equals("}")) {
             return new ContourException("expected a statement (vars, let, def, unknown, use, show, check, for), found "
                     + foundText, where);

@@ -130,6 +130,8 @@ class MainTest {
         String main = script("m.ctr", "use \"extra.ctr\"\nshow answer\n");
         CliRunner r = CliRunner.run("run", "--rules=" + rules, main);
         assertEquals("answer = 42\n", r.out());
+        assertEquals("answer = 42\n", CliRunner.run("run", "--rules", rules.toString(), main).out());
+        assertEquals(Main.BAD_INPUT, CliRunner.run("run", main, "--rules").exitCode());
     }
 
     @Test

@@ -122,12 +122,31 @@ class ScriptParserTest {
     @Test
     void otherSyntaxErrorsSayWhatWasExpected() {
         assertEquals("expected an expression, found end of input", syntaxError("show 1 +").getMessage());
-        assertTrue(syntaxError("x = 3").getMessage().startsWith("expected a statement"));
+        assertEquals("expected a statement, found 'x'; to name a value write 'let x = ...'", syntaxError("x = 3").getMessage());
+        assertTrue(syntaxError("vars s\ns + 1").getMessage().startsWith("expected a statement (vars, let"));
         assertEquals("'sum' is a keyword and cannot be used as a name", syntaxError("let sum = 3").getMessage());
         assertEquals("unexpected character '$'", syntaxError("show 3 $ 4").getMessage());
         ContourException unterminated = syntaxError("show \"abc");
         assertTrue(unterminated.getMessage().startsWith("unterminated string"));
         assertEquals(6, unterminated.span().column());
         assertEquals("unknown output format 'pdf': use plain, latex or json", syntaxError("show x as pdf").getMessage());
+    }
+
+    @Test
+    void absurdNestingIsAnErrorNotACrash() throws InterruptedException {
+        String deep = "show " + "(".repeat(200_000) + "1" + ")".repeat(200_000);
+        // a small stack, as a thread of some embedding application might have
+        Throwable[] thrown = new Throwable[1];
+        Thread t = new Thread(null, () -> {
+            try {
+                ScriptParser.parseScript(deep, "t.ctr");
+            } catch (Throwable e) {
+                thrown[0] = e;
+            }
+        }, "small-stack", 256 * 1024);
+        t.start();
+        t.join();
+        assertInstanceOf(ContourException.class, thrown[0]);
+        assertTrue(thrown[0].getMessage().contains("nests too deeply"));
     }
 }
