@@ -217,6 +217,7 @@ public final class MellinBarnes {
         volatile double bestLog10Error = Double.POSITIVE_INFINITY;
         volatile Apcomplex best;
         private ExecutorService pool;
+        private volatile boolean finished;
 
         Run(int digits, IntegrationLimits limits, String contour) {
             if (digits < 1 || digits > 1000) {
@@ -248,6 +249,7 @@ public final class MellinBarnes {
             try {
                 return memo.run(() -> refine(levelSum));
             } finally {
+                finished = true; // stops the other thread at its next evaluation if this one failed
                 progress.finish();
                 if (pool != null) {
                     pool.shutdownNow();
@@ -436,6 +438,9 @@ public final class MellinBarnes {
 
         /** One integrand evaluation, with budgets, progress and errors located at the point. */
         Apcomplex call(Supplier<Apcomplex> body, Supplier<String> where) {
+            if (finished) {
+                throw new ContourException("integration abandoned");
+            }
             long n = evaluations.incrementAndGet();
             if (n > limits.maxEvaluations()) {
                 throw notReached("within " + limits.maxEvaluations() + " integrand evaluations");

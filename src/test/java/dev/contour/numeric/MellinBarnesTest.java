@@ -12,6 +12,9 @@ import java.util.List;
 import org.apfloat.Apcomplex;
 import org.apfloat.ApcomplexMath;
 import org.apfloat.Apfloat;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.DoubleRange;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
@@ -57,6 +60,27 @@ class MellinBarnesTest {
             }, digits + 5);
             assertAccurate(exact.value(), r, digits);
         }
+    }
+
+    @Property(tries = 3)
+    void claimedDigitsAreHonestForRandomBarnesIntegrals(@ForAll @DoubleRange(min = 0.2, max = 1.5) double a,
+                                                       @ForAll @DoubleRange(min = -1, max = 1) double ai,
+                                                       @ForAll @DoubleRange(min = 0.2, max = 1.5) double c,
+                                                       @ForAll @DoubleRange(min = -1, max = 1) double ci) {
+        // Barnes' first lemma (NIST DLMF 5.13.3) plants the answer; b = a + 1/4, d = c + 1/2.
+        int digits = 8;
+        long wp = MellinBarnes.workingPrecision(digits);
+        Apcomplex aa = new Apcomplex(new Apfloat(a, wp), new Apfloat(ai, wp));
+        Apcomplex bb = aa.add(new Apfloat("0.25", wp));
+        Apcomplex cc = new Apcomplex(new Apfloat(c, wp), new Apfloat(ci, wp));
+        Apcomplex dd = cc.add(new Apfloat("0.5", wp));
+        Apfloat line = MellinBarnes.separatingContour(List.of(aa, bb), List.of(cc, dd));
+        NumericResult r = MellinBarnes.integrate1(s -> gamma(aa.add(s)).multiply(gamma(bb.add(s)))
+                .multiply(gamma(cc.subtract(s))).multiply(gamma(dd.subtract(s))), line, digits, QUIET);
+        long q = wp + 10;
+        Apcomplex exact = gammaAt(aa.add(cc), q).multiply(gammaAt(aa.add(dd), q)).multiply(gammaAt(bb.add(cc), q))
+                .multiply(gammaAt(bb.add(dd), q)).divide(gammaAt(aa.add(bb).add(cc).add(dd), q));
+        assertAccurate(exact, r, digits);
     }
 
     @Test
