@@ -16,27 +16,32 @@ import java.util.Map;
  * <p>A third variable (u) may appear in the Gamma arguments; it is eliminated at construction
  * through the declared constraint {@code s + t + u = sum}, so the stored factors mention only s, t
  * and parameters (such as a symbolic weight p). Offsets and the constraint may involve parameters;
- * the coefficients of s and t in every argument must be numbers.
+ * the coefficients of s and t in every argument must be numbers. A measure without a constraint
+ * has {@code u} and {@code sum} null.
  */
 public record MellinMeasure(String s, String t, String u, Polynomial sum, List<GammaPower> factors,
                             Rational uScale, Polynomial uOffset, Rational vScale, Polynomial vOffset) {
     public MellinMeasure {
+        if ((u == null) != (sum == null)) {
+            throw new ContourException("a constraint needs both the eliminated variable and the sum");
+        }
         if (s.equals(t) || s.equals(u) || t.equals(u)) {
             throw new ContourException("Mellin variables must be distinct, got " + s + ", " + t + ", " + u);
         }
         if (uScale.isZero() || vScale.isZero()) {
             throw new ContourException("the kernel U^(a s + b) V^(c t + d) needs a != 0 and c != 0");
         }
-        for (Polynomial x : List.of(sum, uOffset, vOffset)) {
-            if (x.variables().contains(s) || x.variables().contains(t) || x.variables().contains(u)) {
+        for (Polynomial x : sum == null ? List.of(uOffset, vOffset) : List.of(sum, uOffset, vOffset)) {
+            if (x.variables().contains(s) || x.variables().contains(t) || (u != null && x.variables().contains(u))) {
                 throw new ContourException("constraint and kernel offsets must not mention " + s + ", " + t + " or " + u
                         + ", got " + x);
             }
         }
-        Map<String, Polynomial> elim = Map.of(u, sum.subtract(Polynomial.variable(s)).subtract(Polynomial.variable(t)));
+        Map<String, Polynomial> elim = u == null ? Map.of()
+                : Map.of(u, sum.subtract(Polynomial.variable(s)).subtract(Polynomial.variable(t)));
         List<GammaPower> kept = new ArrayList<>();
         for (GammaPower g : factors) {
-            Polynomial a = g.argument().substitute(elim);
+            Polynomial a = elim.isEmpty() ? g.argument() : g.argument().substitute(elim);
             if (a.totalDegree() > 1) {
                 throw new ContourException("Gamma argument must be linear in " + s + ", " + t + ", got " + g);
             }
@@ -47,11 +52,17 @@ public record MellinMeasure(String s, String t, String u, Polynomial sum, List<G
 
     /** The eliminated variable as a polynomial: {@code sum - s - t}. */
     public Polynomial eliminated() {
+        if (u == null) {
+            throw new ContourException("this measure declares no constraint s + t + u = sum");
+        }
         return sum.subtract(Polynomial.variable(s)).subtract(Polynomial.variable(t));
     }
 
     /** The forms s, t, u along which this measure's amplitudes have their poles. */
     public List<NamedForm> poleForms() {
+        if (u == null) {
+            return List.of(NamedForm.of(s), NamedForm.of(t));
+        }
         return List.of(NamedForm.of(s), NamedForm.of(t), new NamedForm(u, eliminated()));
     }
 
