@@ -107,6 +107,16 @@ public final class AdS5S5 {
         return swap12(p.multiply(Rational.of(4)).subtract(Polynomial.constant(4)));
     }
 
+    /** The composite: first swap 1 and 2, then swap 1 and 3 (a cyclic permutation, of order 3). */
+    public static CrossingMap crossingCyclic(int p) {
+        return crossing13(p).compose(crossing12(Polynomial.constant(p)));
+    }
+
+    /** The composite for the reduced amplitude. */
+    public static CrossingMap crossingCyclicReduced(int p) {
+        return crossing13Reduced(p).compose(crossing12Reduced(Polynomial.constant(p)));
+    }
+
     private static CrossingMap swap13(int tauPower) {
         Expression sigma = Expression.collectedVariable(SIGMA);
         Expression tau = Expression.collectedVariable(TAU);

@@ -8,7 +8,7 @@ import dev.contour.print.PlainPrinter;
 import java.util.ArrayList;
 import java.util.List;
 
-/** A Mellin measure as a value of the language, made by {@code measure(...)}. */
+/** A Mellin measure as a value of the language, made by {@code mellin_measure(...)}. */
 public record MeasureValue(MellinMeasure measure) implements Value {
     @Override
     public String kind() {
@@ -22,7 +22,7 @@ public record MeasureValue(MellinMeasure measure) implements Value {
             gammas.add("{" + PlainPrinter.polynomial(g.argument()) + ", " + g.exponent() + "}");
         }
         String kernel = "{" + PlainPrinter.polynomial(measure.uExponent()) + ", " + PlainPrinter.polynomial(measure.vExponent()) + "}";
-        String text = "measure(gamma: {" + String.join(", ", gammas) + "}, kernel: " + kernel
+        String text = "mellin_measure(gamma: {" + String.join(", ", gammas) + "}, kernel: " + kernel
                 + (measure.u() == null ? "" : ", eliminate: " + measure.u() + ", total: " + PlainPrinter.polynomial(measure.sum())) + ")";
         return switch (format) {
             case PLAIN -> text;

@@ -34,8 +34,8 @@ public final class MellinBuiltins implements BuiltinProvider {
     public void register(BuiltinRegistry r) {
         r.register(new Builtin("shift", 0, 2, Set.of("s", "t"), false,
                 "shift(s: -2, t: 2) or shift({x, y}, {a, b}): the operator f(s, t) -> f(s - 2, t + 2)", MellinBuiltins::shift));
-        r.register(new Builtin("measure", 0, 0, Set.of("gamma", "kernel", "eliminate", "total"), false,
-                "measure(gamma: {x, {y, 2}}, kernel: {s/2, t/2 - p}, eliminate: u, total: 4*p): Gamma(x) Gamma(y)^2 with U^(s/2) V^(t/2-p)",
+        r.register(new Builtin("mellin_measure", 0, 0, Set.of("gamma", "kernel", "eliminate", "total"), false,
+                "mellin_measure(gamma: {x, {y, 2}}, kernel: {s/2, t/2 - p}, eliminate: u, total: 4*p): Gamma(x) Gamma(y)^2 with U^(s/2) V^(t/2-p)",
                 MellinBuiltins::measure));
         r.register(new Builtin("mellin", 1, 1, Set.of("from", "to", "cross"), false,
                 "mellin(R, from: m1, to: m2): multiplication by R(U, V) as a shift operator from measure m1 to m2",
@@ -91,10 +91,10 @@ public final class MellinBuiltins implements BuiltinProvider {
         Arguments.Argument gamma = required(a, "gamma", span);
         Arguments.Argument kernel = required(a, "kernel", span);
         List<GammaPower> factors = new ArrayList<>();
-        for (Value g : list(gamma.value(), gamma.span(), "measure: gamma")) {
+        for (Value g : list(gamma.value(), gamma.span(), "mellin_measure: gamma")) {
             if (g instanceof ListValue pair) {
                 if (pair.items().size() != 2) {
-                    throw new ContourException("measure: a Gamma factor with a power is {argument, power}", gamma.span());
+                    throw new ContourException("mellin_measure: a Gamma factor with a power is {argument, power}", gamma.span());
                 }
                 factors.add(new GammaPower(polynomial(pair.items().get(0), gamma.span(), "a Gamma argument"),
                         Values.integer(pair.items().get(1), gamma.span(), "the power of a Gamma factor")));
@@ -102,16 +102,16 @@ public final class MellinBuiltins implements BuiltinProvider {
                 factors.add(new GammaPower(polynomial(g, gamma.span(), "a Gamma argument"), 1));
             }
         }
-        List<Value> k = list(kernel.value(), kernel.span(), "measure: kernel");
+        List<Value> k = list(kernel.value(), kernel.span(), "mellin_measure: kernel");
         if (k.size() != 2) {
-            throw new ContourException("measure: the kernel is {exponent of U, exponent of V}, such as {s/2, t/2 - p}", kernel.span());
+            throw new ContourException("mellin_measure: the kernel is {exponent of U, exponent of V}, such as {s/2, t/2 - p}", kernel.span());
         }
         Polynomial eu = polynomial(k.get(0), kernel.span(), "the exponent of U");
         Polynomial ev = polynomial(k.get(1), kernel.span(), "the exponent of V");
         Optional<Arguments.Argument> elim = a.named("eliminate");
         Optional<Arguments.Argument> sum = a.named("total");
         if (elim.isPresent() != sum.isPresent()) {
-            throw new ContourException("measure: 'eliminate' and 'total' go together (s + t + u = total)", span);
+            throw new ContourException("mellin_measure: 'eliminate' and 'total' go together (s + t + u = total)", span);
         }
         Set<String> exclude = new LinkedHashSet<>();
         String u = null;
@@ -137,7 +137,7 @@ public final class MellinBuiltins implements BuiltinProvider {
             }
         }
         if (candidates.size() != 1 || e.totalDegree() != 1 || !e.coefficient(candidates.get(0), 1).isConstant()) {
-            throw new ContourException("measure: the exponent of " + which + " must be a*x + b for one Mellin variable x, got "
+            throw new ContourException("mellin_measure: the exponent of " + which + " must be a*x + b for one Mellin variable x, got "
                     + PlainPrinter.polynomial(e), span);
         }
         return candidates.get(0);
@@ -271,7 +271,7 @@ public final class MellinBuiltins implements BuiltinProvider {
         if (a.get(i) instanceof MeasureValue m) {
             return m.measure();
         }
-        throw new ContourException(a.function() + ": argument " + (i + 1) + " must be a measure (made by measure(...)), not a "
+        throw new ContourException(a.function() + ": argument " + (i + 1) + " must be a measure (made by mellin_measure(...)), not a "
                 + a.get(i).kind(), a.spanOf(i));
     }
 
@@ -279,7 +279,7 @@ public final class MellinBuiltins implements BuiltinProvider {
         if (x.value() instanceof MeasureValue m) {
             return m.measure();
         }
-        throw new ContourException("'" + x.name() + "' must be a measure (made by measure(...)), not a " + x.value().kind(), x.span());
+        throw new ContourException("'" + x.name() + "' must be a measure (made by mellin_measure(...)), not a " + x.value().kind(), x.span());
     }
 
     private static List<Value> list(Value v, Span span, String what) {

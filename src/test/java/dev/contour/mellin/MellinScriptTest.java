@@ -123,7 +123,7 @@ class MellinScriptTest {
     void mistakesAreLocatedContourErrors() {
         ContourException e = assertThrows(ContourException.class, () -> run("""
                 vars s, t
-                let m = measure(gamma: {(1 - s)/2}, kernel: {s, t})
+                let m = mellin_measure(gamma: {(1 - s)/2}, kernel: {s, t})
                 let E = mellin(1, from: m, to: m)
                 let F = mellin(1, from: m, to: 3)
                 """, OutputFormat.PLAIN));
@@ -131,7 +131,7 @@ class MellinScriptTest {
         ContourException half = assertThrows(ContourException.class, () -> run("""
                 vars s, t
                 vars U, V collected
-                let m = measure(gamma: {-s/2}, kernel: {s, t})
+                let m = mellin_measure(gamma: {-s/2}, kernel: {s, t})
                 let E = mellin(U, from: m, to: m)
                 """, OutputFormat.PLAIN));
         assertTrue(half.getMessage().contains("not an integer") && half.span().line() == 4, half.getMessage());
