@@ -1,0 +1,103 @@
+package dev.contour.mellin;
+
+import dev.contour.ContourException;
+import dev.contour.Span;
+import dev.contour.algebra.Expression;
+import dev.contour.eval.Arguments;
+import dev.contour.eval.CallableValue;
+import dev.contour.eval.ExprValue;
+import dev.contour.eval.OperandValue;
+import dev.contour.eval.OutputFormat;
+import dev.contour.eval.SubstitutableValue;
+import dev.contour.eval.Value;
+import dev.contour.eval.Values;
+import dev.contour.lang.Expr;
+
+import java.util.Map;
+import java.util.TreeMap;
+
+/**
+ * A shift operator as a value of the language: {@code E*F} composes, {@code f*E} multiplies on the
+ * left, {@code E*f} composes with multiplication by f, {@code E + 1} adds the identity times 1,
+ * {@code E^n} is a power and {@code E(M)} applies E to an amplitude.
+ */
+public record OperatorValue(ShiftOperator operator) implements OperandValue, CallableValue, SubstitutableValue {
+    @Override
+    public String kind() {
+        return "shift operator";
+    }
+
+    @Override
+    public Value combine(Expr.Operator op, Value other, boolean thisOnLeft, Span span) {
+        ShiftOperator o;
+        if (other instanceof OperatorValue ov) {
+            o = ov.operator;
+        } else if (other instanceof ExprValue e) {
+            o = ShiftOperator.multiplication(e.value());
+        } else {
+            return null;
+        }
+        ShiftOperator left = thisOnLeft ? operator : o;
+        ShiftOperator right = thisOnLeft ? o : operator;
+        return switch (op) {
+            case ADD -> new OperatorValue(left.add(right));
+            case SUBTRACT -> new OperatorValue(left.subtract(right));
+            case MULTIPLY -> new OperatorValue(left.multiply(right));
+            case DIVIDE -> {
+                if (thisOnLeft && other instanceof ExprValue e && e.value().isConstant() && !e.value().isZero()) {
+                    yield new OperatorValue(operator.multiply(Expression.ONE.divide(e.value())));
+                }
+                throw new ContourException("an operator divides only by a non-zero number; write (1/f)*E or E*(1/f)", span);
+            }
+            case POWER -> {
+                if (!thisOnLeft || !(other instanceof ExprValue)) {
+                    throw new ContourException("only an operator can be raised to a power, by an integer >= 0", span);
+                }
+                yield new OperatorValue(operator.pow(Values.integer(other, span, "the power of an operator")));
+            }
+        };
+    }
+
+    @Override
+    public Value negate(Span span) {
+        return new OperatorValue(operator.negate());
+    }
+
+    @Override
+    public boolean isZero() {
+        return operator.isZero();
+    }
+
+    /** {@code E(M)}: the operator applied to one amplitude. */
+    @Override
+    public Value call(Arguments arguments, Span span) {
+        if (arguments.all().size() != 1 || arguments.positional().size() != 1) {
+            throw new ContourException("a shift operator applies to one amplitude: E(M)", span);
+        }
+        return new ExprValue(operator.apply(arguments.expression(0)));
+    }
+
+    /** Substitution in the coefficients; a variable the operator shifts cannot be replaced. */
+    @Override
+    public Value substitute(Map<String, Expression> values, Span span) {
+        TreeMap<Shift, Expression> terms = new TreeMap<>();
+        for (Map.Entry<Shift, Expression> e : operator.terms().entrySet()) {
+            for (String v : values.keySet()) {
+                if (e.getKey().amounts().containsKey(v)) {
+                    throw new ContourException("cannot replace '" + v + "': the operator shifts it", span);
+                }
+            }
+            terms.put(e.getKey(), e.getValue().substitute(values));
+        }
+        return new OperatorValue(ShiftOperator.of(terms));
+    }
+
+    @Override
+    public String render(OutputFormat format) {
+        return switch (format) {
+            case PLAIN -> OperatorPrinter.plain(operator, false);
+            case LATEX -> OperatorPrinter.latex(operator, false);
+            case JSON -> OperatorPrinter.json(operator);
+        };
+    }
+}

@@ -1,0 +1,139 @@
+package dev.contour.mellin;
+
+import dev.contour.ContourException;
+import dev.contour.eval.Interpreter;
+import dev.contour.eval.InterpreterOptions;
+import dev.contour.eval.OutputFormat;
+import dev.contour.eval.RunResult;
+import org.junit.jupiter.api.Test;
+
+import java.io.ByteArrayOutputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+
+import static org.junit.jupiter.api.Assertions.*;
+
+/** The mellin built-ins and rules/ads5s5.ctr driven through the language. */
+class MellinScriptTest {
+    private final ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+
+    private RunResult run(String script, OutputFormat format) {
+        PrintStream out = new PrintStream(bytes, true, StandardCharsets.UTF_8);
+        return new Interpreter(InterpreterOptions.to(out).withFormat(format)).run(script, "test.ctr");
+    }
+
+    private String output() {
+        return bytes.toString(StandardCharsets.UTF_8);
+    }
+
+    @Test
+    void theAdS5S5ProblemInADozenLines() {
+        // arXiv:1608.06624 / arXiv:1710.05923: at p = 3 equal a_ijk give a crossing-symmetric amplitude with
+        // simple poles at s, t, u = 2, 4, polynomial residues and linear growth (physics-reference section 4).
+        String script = """
+                use "ads5s5.ctr"
+                let p = 3
+                let Mred = (sum i, j, k with i + j + k = p - 2 :
+                    sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+                let M = ward(p)(Mred)
+                check cross13_reduced(p)(Mred) == Mred
+                check cross12_reduced(p)(Mred) == Mred
+                check cross13(p)(M) == M
+                check cross12(p)(M) == M
+                check stray_poles(M, p) == 0
+                check bad_residues(M, p) == 0
+                check growth(M, full_measure(p)) == growth_bound
+                show poles(M, full_measure(p))
+                """;
+        RunResult r = run(script, OutputFormat.PLAIN);
+        assertEquals(7, r.checksPassed(), output());
+        assertEquals(0, r.checksFailed(), output());
+        assertTrue(output().contains("s = 2") && output().contains("u = 4"), output());
+    }
+
+    @Test
+    void aBrokenAnsatzFailsTheResidueCheckNamingAPolePair() {
+        String script = """
+                use "ads5s5.ctr"
+                let Mred = (2*sigma/((s - 4)*(t - 2)*(utilde - 2)) + tau/((s - 4)*(t - 4)*(utilde - 4))
+                    + 1/((s - 2)*(t - 4)*(utilde - 4))) at (utilde = 8 - s - t)
+                show bad_residues(ward(3)(Mred), 3)
+                check bad_residues(ward(3)(Mred), 3) == 0
+                """;
+        RunResult r = run(script, OutputFormat.PLAIN);
+        assertEquals(1, r.checksFailed(), output());
+        assertTrue(output().matches("(?s).*[stu] = \\d+ and [stu] = \\d+ \\(coefficient of .*"), output());
+    }
+
+    @Test
+    void operatorArithmeticInTheLanguage() {
+        String script = """
+                vars s, t
+                let E = shift(s: -2, t: 2)
+                check (E*E)(s*t) == (s - 4)*(t + 4)
+                check (E + 1)(s) == 2*s - 2
+                check (s*E)(t) == s*(t + 2)
+                check (E*s)(t) == (s - 2)*(t + 2)
+                check E^2 == E*E
+                check shift({s, t}, {2, -2}) * E == 1
+                check (E - E) == 0
+                """;
+        RunResult r = run(script, OutputFormat.PLAIN);
+        assertEquals(7, r.checksPassed(), output());
+    }
+
+    @Test
+    void wardOperatorPrintsAndReadsBack() {
+        run("""
+                use "ads5s5.ctr"
+                show ward(2)
+                """, OutputFormat.PLAIN);
+        String printed = output().trim();
+        String text = printed.substring(printed.indexOf('=') + 1).trim();
+        bytes.reset();
+        RunResult r = run("use \"ads5s5.ctr\"\nlet E = " + text + "\ncheck E == ward(2)\n", OutputFormat.PLAIN);
+        assertEquals(1, r.checksPassed(), text + "\n" + output());
+    }
+
+    @Test
+    void latexAndJsonForms() {
+        run("""
+                vars s, t
+                show shift(s: -2) * s as latex
+                show shift(s: -2) * s as json
+                """, OutputFormat.PLAIN);
+        assertTrue(output().contains("\\mathrm{E}_{s}^{-2}"), output());
+        assertTrue(output().contains("\"kind\":\"shift operator\"") && output().contains("\"shift\":{\"s\":\"-2\"}"), output());
+    }
+
+    @Test
+    void symbolicWeightThroughTheLanguage() {
+        // physics-reference section 4: the dictionary handles p as a variable; giving p a value afterwards agrees.
+        String script = """
+                use "ads5s5.ctr"
+                vars p
+                let W = ward(p)
+                check (W at (p = 4)) == ward(4)
+                """;
+        RunResult r = run(script, OutputFormat.PLAIN);
+        assertEquals(1, r.checksPassed(), output());
+    }
+
+    @Test
+    void mistakesAreLocatedContourErrors() {
+        ContourException e = assertThrows(ContourException.class, () -> run("""
+                vars s, t
+                let m = mellin_measure(gamma: {(1 - s)/2}, kernel: {s, t})
+                let E = mellin(1, from: m, to: m)
+                let F = mellin(1, from: m, to: 3)
+                """, OutputFormat.PLAIN));
+        assertTrue(e.span() != null && e.span().line() == 4, e.getMessage());
+        ContourException half = assertThrows(ContourException.class, () -> run("""
+                vars s, t
+                vars U, V collected
+                let m = mellin_measure(gamma: {-s/2}, kernel: {s, t})
+                let E = mellin(U, from: m, to: m)
+                """, OutputFormat.PLAIN));
+        assertTrue(half.getMessage().contains("not an integer") && half.span().line() == 4, half.getMessage());
+    }
+}
