@@ -293,17 +293,175 @@ public final class Polynomial implements Comparable<Polynomial> {
             }
             return new Polynomial(u, ex, co);
         }
-        HashMap<Key, Rational> acc = new HashMap<>(a.length * b.length * 2);
-        for (int i = 0; i < a.length; i++) {
-            for (int j = 0; j < b.length; j++) {
-                int[] e = new int[u.length];
-                for (int v = 0; v < u.length; v++) {
-                    e[v] = a[i][v] + b[j][v];
+        if (b.length <= MERGE_LIMIT || a.length <= MERGE_LIMIT) {
+            return a.length >= b.length ? mergeProduct(u, a, coeffs, b, o.coeffs) : mergeProduct(u, b, o.coeffs, a, coeffs);
+        }
+        if (KroneckerProduct.worthwhile(a, b, u.length)) {
+            return KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs);
+        }
+        return packedProduct(u, a, coeffs, b, o.coeffs);
+    }
+
+    /** Up to this many terms in the smaller factor, products are formed by merging shifted copies. */
+    private static final int MERGE_LIMIT = 8;
+
+    /**
+     * Product with a short polynomial: each term of the short one shifts the long one without
+     * changing its order (the monomial order is compatible with multiplication), so the result is a
+     * k-way merge of sorted streams, with no hashing or sorting.
+     */
+    private static Polynomial mergeProduct(String[] u, int[][] a, Rational[] ca, int[][] b, Rational[] cb) {
+        int k = b.length;
+        int n = u.length;
+        int[] pos = new int[k];
+        int[][] head = new int[k][];
+        for (int j = 0; j < k; j++) {
+            head[j] = shifted(a[0], b[j], n);
+        }
+        List<int[]> ex = new ArrayList<>(a.length * k);
+        List<Rational> co = new ArrayList<>(a.length * k);
+        while (true) {
+            int best = -1;
+            for (int j = 0; j < k; j++) {
+                if (head[j] != null && (best < 0 || compareExponents(head[j], head[best]) > 0)) {
+                    best = j;
                 }
-                acc.merge(new Key(e), coeffs[i].multiply(o.coeffs[j]), Rational::add);
+            }
+            if (best < 0) {
+                break;
+            }
+            int[] e = head[best];
+            Rational c = Rational.ZERO;
+            for (int j = best; j < k; j++) {
+                if (head[j] != null && (j == best || Arrays.equals(head[j], e))) {
+                    c = c.add(ca[pos[j]].multiply(cb[j]));
+                    pos[j]++;
+                    head[j] = pos[j] < a.length ? shifted(a[pos[j]], b[j], n) : null;
+                }
+            }
+            if (!c.isZero()) {
+                ex.add(e);
+                co.add(c);
             }
         }
-        return fromMap(u, acc);
+        return fromArrays(u, ex.toArray(new int[0][]), co.toArray(new Rational[0]), true);
+    }
+
+    private static int[] shifted(int[] e, int[] m, int n) {
+        int[] out = new int[n];
+        for (int v = 0; v < n; v++) {
+            out[v] = e[v] + m[v];
+        }
+        return out;
+    }
+
+    /**
+     * General product: exponent vectors packed into one long (total degree in the top bits, so the
+     * numeric order of keys is the graded-lex order), accumulated in an open-addressing table, then
+     * sorted. Falls back to hashing exponent arrays when the degrees do not fit.
+     */
+    private static Polynomial packedProduct(String[] u, int[][] a, Rational[] ca, int[][] b, Rational[] cb) {
+        int n = u.length;
+        int maxDeg = 0;
+        for (int[] e : a) {
+            maxDeg = Math.max(maxDeg, degreeOf(e));
+        }
+        int maxB = 0;
+        for (int[] e : b) {
+            maxB = Math.max(maxB, degreeOf(e));
+        }
+        maxDeg += maxB;
+        int bits = 63 / (n + 1);
+        if (bits < 1 || maxDeg >= (1L << bits)) {
+            HashMap<Key, Rational> acc = new HashMap<>(a.length * b.length * 2);
+            for (int i = 0; i < a.length; i++) {
+                for (int j = 0; j < b.length; j++) {
+                    acc.merge(new Key(shifted(a[i], b[j], n)), ca[i].multiply(cb[j]), Rational::add);
+                }
+            }
+            return fromMap(u, acc);
+        }
+        long[] pa = pack(a, bits);
+        long[] pb = pack(b, bits);
+        int cap = Integer.highestOneBit(Math.max(4, a.length * b.length)) * 4;
+        if (cap < 0 || cap > (1 << 26)) {
+            cap = 1 << 26;
+        }
+        long[] keys = new long[cap];
+        Rational[] vals = new Rational[cap];
+        boolean[] used = new boolean[cap];
+        int mask = cap - 1;
+        int shift = 64 - Integer.numberOfTrailingZeros(cap);
+        int count = 0;
+        for (int i = 0; i < a.length; i++) {
+            for (int j = 0; j < b.length; j++) {
+                long key = pa[i] + pb[j];
+                int h = (int) ((key * 0x9E3779B97F4A7C15L) >>> shift);
+                while (used[h] && keys[h] != key) {
+                    h = (h + 1) & mask;
+                }
+                Rational c = ca[i].multiply(cb[j]);
+                if (used[h]) {
+                    vals[h] = vals[h].add(c);
+                } else {
+                    used[h] = true;
+                    keys[h] = key;
+                    vals[h] = c;
+                    count++;
+                }
+            }
+        }
+        long[] k2 = new long[count];
+        int m = 0;
+        for (int h = 0; h < cap; h++) {
+            if (used[h] && !vals[h].isZero()) {
+                k2[m++] = keys[h];
+            }
+        }
+        k2 = Arrays.copyOf(k2, m);
+        Arrays.sort(k2);
+        int[][] ex = new int[m][];
+        Rational[] co = new Rational[m];
+        for (int t = 0; t < m; t++) {
+            long key = k2[m - 1 - t];
+            int h = (int) ((key * 0x9E3779B97F4A7C15L) >>> shift);
+            while (keys[h] != key) {
+                h = (h + 1) & mask;
+            }
+            co[t] = vals[h];
+            ex[t] = unpack(key, n, bits);
+        }
+        return fromArrays(u, ex, co, true);
+    }
+
+    private static int degreeOf(int[] e) {
+        int d = 0;
+        for (int x : e) {
+            d += x;
+        }
+        return d;
+    }
+
+    private static long[] pack(int[][] ex, int bits) {
+        long[] out = new long[ex.length];
+        for (int t = 0; t < ex.length; t++) {
+            long key = degreeOf(ex[t]);
+            for (int x : ex[t]) {
+                key = (key << bits) | x;
+            }
+            out[t] = key;
+        }
+        return out;
+    }
+
+    private static int[] unpack(long key, int n, int bits) {
+        int[] e = new int[n];
+        long mask = (1L << bits) - 1;
+        for (int v = n - 1; v >= 0; v--) {
+            e[v] = (int) (key & mask);
+            key >>>= bits;
+        }
+        return e;
     }
 
     public Polynomial multiply(Rational c) {
@@ -382,6 +540,9 @@ public final class Polynomial implements Comparable<Polynomial> {
                 return null;
             }
         }
+        if (d.isLinear() && !mayVanishOn(d)) {
+            return null;
+        }
         if (d.vars.length == 1 && d.exps.length == 2 && d.exps[0][0] == 1) {
             return divideLinearUnivariateOrNull(d);
         }
@@ -421,6 +582,102 @@ public final class Polynomial implements Comparable<Polynomial> {
             }
         }
         return fromMap(u, quot);
+    }
+
+    private static final long HYPERPLANE_PRIME = 2147483629L;
+
+    /**
+     * False only when this polynomial certainly is not a multiple of the linear form l: it does not
+     * vanish at a pseudo-random point of the hyperplane l = 0 over Z/p. (A multiple of l vanishes at
+     * every such point, so "false" is always right; "true" means "maybe".) Cancellation mostly asks
+     * about factors that do not divide, and this rejects them in one pass over the terms.
+     */
+    boolean mayVanishOn(Polynomial l) {
+        final long p = HYPERPLANE_PRIME;
+        String[] u = unionVars(vars, l.vars);
+        int[][] le = l.expsOver(u);
+        // l = a*x + rest, x its leading variable
+        int xi = -1;
+        for (int v = 0; v < u.length && xi < 0; v++) {
+            if (le[0][v] == 1) {
+                xi = v;
+            }
+        }
+        long[] val = new long[u.length];
+        long seed = 0x9E3779B97F4A7C15L ^ l.hashCode();
+        for (int v = 0; v < u.length; v++) {
+            seed = seed * 6364136223846793005L + 1442695040888963407L;
+            val[v] = 1 + Math.floorMod(seed >>> 17, p - 1);
+        }
+        long a = 0;
+        long rest = 0;
+        for (int t = 0; t < le.length; t++) {
+            long c = modP(l.coeffs[t], p);
+            if (c < 0) {
+                return true;
+            }
+            if (le[t][xi] == 1) {
+                a = c;
+            } else {
+                long m = c;
+                for (int v = 0; v < u.length; v++) {
+                    if (le[t][v] == 1) {
+                        m = m * val[v] % p;
+                    }
+                }
+                rest = (rest + m) % p;
+            }
+        }
+        if (a == 0) {
+            return true;
+        }
+        val[xi] = Math.floorMod(-rest, p) * ModularPoly.inverse(a, p) % p;
+        int[][] me = expsOver(u);
+        long sum = 0;
+        for (int t = 0; t < me.length; t++) {
+            long c = modP(coeffs[t], p);
+            if (c < 0) {
+                return true;
+            }
+            for (int v = 0; v < u.length && c != 0; v++) {
+                int e = me[t][v];
+                if (e > 0) {
+                    c = c * powMod(val[v], e, p) % p;
+                }
+            }
+            sum = (sum + c) % p;
+        }
+        return sum == 0;
+    }
+
+    /** c mod p, or -1 when the denominator is divisible by p. */
+    private static long modP(Rational c, long p) {
+        if (c.isSmall()) {
+            long d = Math.floorMod(c.longDen(), p);
+            if (d == 0) {
+                return -1;
+            }
+            long n = Math.floorMod(c.longNum(), p);
+            return d == 1 ? n : n * ModularPoly.inverse(d, p) % p;
+        }
+        java.math.BigInteger bp = java.math.BigInteger.valueOf(p);
+        long d = c.denominator().mod(bp).longValue();
+        if (d == 0) {
+            return -1;
+        }
+        return c.numerator().mod(bp).longValue() * ModularPoly.inverse(d, p) % p;
+    }
+
+    private static long powMod(long b, int e, long p) {
+        long r = 1;
+        while (e > 0) {
+            if ((e & 1) != 0) {
+                r = r * b % p;
+            }
+            b = b * b % p;
+            e >>= 1;
+        }
+        return r;
     }
 
     /** Synthetic division by a univariate a*x + b (the most frequent exact division). */

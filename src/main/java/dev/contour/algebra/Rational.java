@@ -169,6 +169,9 @@ public final class Rational implements Comparable<Rational> {
                 // fall through to BigInteger
             }
         }
+        if (isInteger() && o.isInteger()) {
+            return reduced(numerator().add(o.numerator()), BigInteger.ONE);
+        }
         return of(numerator().multiply(o.denominator()).add(o.numerator().multiply(denominator())),
                 denominator().multiply(o.denominator()));
     }
@@ -189,6 +192,9 @@ public final class Rational implements Comparable<Rational> {
             } catch (ArithmeticException overflow) {
                 // fall through to BigInteger
             }
+        }
+        if (isInteger() && o.isInteger()) {
+            return reduced(numerator().multiply(o.numerator()), BigInteger.ONE);
         }
         return of(numerator().multiply(o.numerator()), denominator().multiply(o.denominator()));
     }

@@ -98,21 +98,29 @@ public final class RationalFunction {
 
         /** Removes common factors of the numerator and the denominator. */
         void cancel() {
+            cancel(factors.keySet(), cof);
+        }
+
+        /**
+         * Removes common factors of the numerator and the denominator, knowing that only the given
+         * linear factors and divisors of {@code cofPart} (a divisor of the cofactor) can be common.
+         */
+        void cancel(java.util.Collection<Polynomial> candidates, Polynomial cofPart) {
             if (num.isZero()) {
                 return;
             }
-            for (Map.Entry<Polynomial, Integer> f : factors.entrySet()) {
-                int e = f.getValue();
+            for (Polynomial l : candidates) {
+                int e = factors.get(l);
                 Polynomial q;
-                while (e > 0 && !num.isConstant() && (q = num.divideOrNull(f.getKey())) != null) {
+                while (e > 0 && !num.isConstant() && (q = num.divideOrNull(l)) != null) {
                     num = q;
                     e--;
                 }
-                f.setValue(e);
+                factors.put(l, e);
             }
             factors.values().removeIf(e -> e == 0);
-            if (!cof.isConstant() && !num.isConstant()) {
-                Polynomial g = PolynomialGcd.gcd(num, cof);
+            if (!cofPart.isConstant() && !num.isConstant()) {
+                Polynomial g = PolynomialGcd.gcd(num, cofPart);
                 if (!g.isConstant()) {
                     num = num.divideOrNull(g);
                     cof = cof.divideOrNull(g);
@@ -176,8 +184,10 @@ public final class RationalFunction {
         Polynomial ma = Polynomial.ONE;
         Polynomial mb = Polynomial.ONE;
         Polynomial lcmCof;
+        Polynomial commonCof = Polynomial.ONE;
         if (cof.equals(o.cof)) {
             lcmCof = cof;
+            commonCof = cof;
         } else if (cof.isOne()) {
             lcmCof = o.cof;
             ma = o.cof;
@@ -186,6 +196,7 @@ public final class RationalFunction {
             mb = cof;
         } else {
             Polynomial g = PolynomialGcd.gcd(cof, o.cof);
+            commonCof = g;
             Polynomial cb = o.cof.divideOrNull(g);
             Polynomial ca = cof.divideOrNull(g);
             lcmCof = cof.multiply(cb);
@@ -193,6 +204,9 @@ public final class RationalFunction {
             mb = ca;
         }
         Builder b = new Builder(null, lcmCof);
+        // Only factors with equal exponents on both sides can cancel from the new numerator: where one
+        // side has the higher power, the other side's term carries that factor and the first does not.
+        List<Polynomial> shared = new ArrayList<>();
         int i = 0;
         int j = 0;
         while (i < lin.length || j < o.lin.length) {
@@ -210,17 +224,35 @@ public final class RationalFunction {
                 b.factors.put(lin[i], e);
                 if (e > mult[i]) {
                     ma = ma.multiply(lin[i].pow(e - mult[i]));
-                }
-                if (e > o.mult[j]) {
+                } else if (e > o.mult[j]) {
                     mb = mb.multiply(lin[i].pow(e - o.mult[j]));
+                } else {
+                    shared.add(lin[i]);
                 }
                 i++;
                 j++;
             }
         }
         b.num = num.multiply(ma).add(o.num.multiply(mb));
-        b.cancel();
+        b.cancel(shared, commonCof);
         return b.build();
+    }
+
+    /**
+     * The sum of many functions, added as a balanced tree so that the large common denominators are
+     * built only near the root (much cheaper than a left-to-right fold).
+     */
+    public static RationalFunction sum(java.util.Collection<RationalFunction> terms) {
+        RationalFunction[] a = terms.toArray(new RationalFunction[0]);
+        return a.length == 0 ? ZERO : sum(a, 0, a.length);
+    }
+
+    private static RationalFunction sum(RationalFunction[] a, int from, int to) {
+        if (to - from == 1) {
+            return a[from];
+        }
+        int mid = (from + to) >>> 1;
+        return sum(a, from, mid).add(sum(a, mid, to));
     }
 
     private boolean sameDenominator(RationalFunction o) {
