@@ -8,9 +8,10 @@ import java.util.concurrent.TimeUnit;
  * session goes on.
  *
  * <p>An interrupt first asks politely ({@link Thread#interrupt()}) and waits a grace period, in
- * case the computation notices; a computation still running after that is stopped by force and
- * reported as {@link Outcome#ABANDONED}, which tells the caller that whatever state the worker
- * was changing can no longer be trusted.
+ * case the computation notices; a computation still running after that is stopped by force
+ * ({@link Outcome#STOPPED}: whatever the worker was changing may be half changed), or, where the
+ * runtime no longer allows that, left running on its own ({@link Outcome#ABANDONED}: whatever it
+ * can reach must not be used again).
  */
 final class Evaluation {
     /** How a run ended. */
@@ -19,7 +20,9 @@ final class Evaluation {
         FINISHED,
         /** The task ended after an interrupt request, on its own. */
         INTERRUPTED,
-        /** The task ignored the interrupt and was stopped; its state is suspect. */
+        /** The task ignored the interrupt and was stopped by force; what it was changing is suspect. */
+        STOPPED,
+        /** The task ignored the interrupt and could not be stopped: it still runs, on a daemon thread. */
         ABANDONED
     }
 
@@ -82,8 +85,7 @@ final class Evaluation {
                 return Outcome.INTERRUPTED;
             }
             stop(t);
-            finishes(t, 2_000);
-            return Outcome.ABANDONED;
+            return finishes(t, 2_000) ? Outcome.STOPPED : Outcome.ABANDONED;
         } finally {
             worker = null;
         }

@@ -29,8 +29,8 @@ final class NameCompleter implements Completer {
     public void complete(LineReader reader, ParsedLine line, List<Candidate> candidates) {
         if (Session.isCommand(line.line())) {
             if (line.wordIndex() == 0) {
-                for (String[] c : Session.COMMANDS) {
-                    candidates.add(new Candidate(":" + c[0], ":" + c[0], null, c[2], null, null, true));
+                for (Session.Command c : Session.COMMANDS) {
+                    candidates.add(new Candidate(":" + c.name(), ":" + c.name(), null, c.summary(), null, null, true));
                 }
             } else if (line.wordIndex() == 1 && List.of(":write", ":run").contains(line.words().get(0))) {
                 files.complete(reader, line, candidates);

@@ -7,6 +7,8 @@ import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.RunResult;
 import dev.contour.eval.Suggestions;
 import dev.contour.lang.Diagnostic;
+import dev.contour.lang.ScriptParser;
+import dev.contour.lang.Stmt;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.io.PrintStream;
@@ -37,14 +39,16 @@ public final class Session {
     private static final Set<String> STATEMENT_WORDS =
             Set.of("vars", "let", "def", "unknown", "use", "show", "check", "for", "rule", "derive");
 
-    /** The {@code :commands}: name, argument, what it does. */
-    static final List<String[]> COMMANDS = List.of(
-            new String[] {"help", "", "this list"},
-            new String[] {"defs", "", "the session's definitions, as script text"},
-            new String[] {"names", "", "every name in scope: definitions, variables, built-ins"},
-            new String[] {"write", "FILE", "save the definitions to FILE as a script (replacing it whole)"},
-            new String[] {"run", "FILE", "run a script in this session; its definitions join the session"},
-            new String[] {"end", "", "leave the session (Ctrl-D does too)"});
+    /** A {@code :command}: its name, its argument (empty for none) and what it does. */
+    record Command(String name, String argument, String summary) { }
+
+    static final List<Command> COMMANDS = List.of(
+            new Command("help", "", "this list"),
+            new Command("defs", "", "the session's definitions, as script text"),
+            new Command("names", "", "every name in scope: definitions, variables, built-ins"),
+            new Command("write", "FILE", "save the definitions to FILE as a script (replacing it whole)"),
+            new Command("run", "FILE", "run a script in this session; its definitions join the session"),
+            new Command("end", "", "leave the session (Ctrl-D does too)"));
 
     private static final long GRACE_MILLIS = 500;
 
@@ -149,19 +153,17 @@ public final class Session {
         Evaluation.Outcome outcome = evaluation.run(() -> result[0] = target.run(text, fileName));
         out.flush();
         Throwable failure = evaluation.failure();
-        switch (outcome) {
-            case ABANDONED -> {
-                err.println("interrupted");
+        boolean interrupted = outcome == Evaluation.Outcome.STOPPED || outcome == Evaluation.Outcome.ABANDONED
+                || outcome == Evaluation.Outcome.INTERRUPTED && failure != null;
+        if (interrupted) {
+            err.println("interrupted");
+            // The session goes on as it was before this input. Only statements that define
+            // something change it, so an input of nothing but shows and checks needs no repair
+            // (unless its worker still runs and may yet touch the interpreter).
+            if (outcome == Evaluation.Outcome.ABANDONED || definesSomething(text, fileName)) {
                 rebuild();
-                return;
             }
-            case INTERRUPTED -> {
-                if (failure != null) {
-                    err.println("interrupted");
-                    return; // not kept for rebuilding: replaying it would run it to the end
-                }
-            }
-            case FINISHED -> { }
+            return;
         }
         past.add(input);
         if (failure == null) {
@@ -171,13 +173,19 @@ public final class Session {
         }
     }
 
+    private static boolean definesSomething(String text, String fileName) {
+        try {
+            return !ScriptParser.parseScript(text, fileName).stream().allMatch(s -> s instanceof Stmt.Show || s instanceof Stmt.Check);
+        } catch (ContourException e) {
+            return false; // it did not parse, so it never ran
+        }
+    }
+
     private void report(Throwable failure, String text, String fileName, int bareStart) {
         anyError = true;
         if (failure instanceof ContourException e) {
             Span span = bareStart > 0 ? unpad(e.span(), bareStart) : e.span();
             err.print(Diagnostic.render(new ContourException(e.getMessage(), span), sourceOf(span, text, fileName)));
-        } else if (failure instanceof ThreadDeath) {
-            err.println("interrupted");
         } else {
             err.println("contour: internal error: " + failure + (settings.debug() ? "" : " (run with --debug for details)"));
         }
@@ -303,7 +311,7 @@ public final class Session {
                     return false;
                 }
                 default -> {
-                    List<String> names = COMMANDS.stream().map(c -> c[0]).toList();
+                    List<String> names = COMMANDS.stream().map(Command::name).toList();
                     String near = Suggestions.nearest(name, names);
                     throw new ContourException("unknown command ':" + name + "'" + (near == null ? "" : "; did you mean ':" + near + "'?")
                             + " (:help lists them)", where);
@@ -369,8 +377,8 @@ public final class Session {
                 Ctrl-C stops a running computation (or clears the line being typed); Ctrl-D leaves.
                 Commands:
                 """);
-        for (String[] c : COMMANDS) {
-            b.append(String.format("  %-13s %s%n", ":" + c[0] + (c[1].isEmpty() ? "" : " " + c[1]), c[2]));
+        for (Command c : COMMANDS) {
+            b.append(String.format("  %-13s %s%n", ":" + c.name() + (c.argument().isEmpty() ? "" : " " + c.argument()), c.summary()));
         }
         return b.toString();
     }

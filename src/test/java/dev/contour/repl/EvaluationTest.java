@@ -51,7 +51,7 @@ class EvaluationTest {
             }
         });
         signal.join();
-        assertEquals(Evaluation.Outcome.ABANDONED, outcome);
+        assertEquals(Evaluation.Outcome.STOPPED, outcome, "Java 17 still allows stopping a thread");
         long after = spins.get();
         Thread.sleep(100);
         assertEquals(after, spins.get(), "the stopped task no longer runs");

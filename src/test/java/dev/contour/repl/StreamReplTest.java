@@ -115,6 +115,42 @@ class StreamReplTest {
     }
 
     @Test
+    void aSavedSessionOfAlgebraRerunsToTheSameValues() throws IOException {
+        // A toy scenario of our own: a made-up weight-3 ansatz with one shifted pole.
+        Path saved = dir.resolve("algebra.ctr");
+        String shows = """
+                show m
+                show shifted(m)
+                show m at (s = t, t = s)
+                show sum i, j with i + j = 2 : c[i, j] * s^i * t^j
+                """;
+        Run session = repl("""
+                vars s, t
+                unknown c[i, j] with i + j = 2
+                let p = 3
+                let m = (s + t)^p / ((s - 2) * (t - 2 +
+                    1/3))
+                def shifted(f) = f at s = s + 2
+                let p = 4
+                """ + shows + ":write " + saved + "\n");
+        assertEquals(0, session.code(), session.err());
+        Path rerun = dir.resolve("rerun-algebra.ctr");
+        Files.writeString(rerun, Files.readString(saved) + shows);
+        Run script = script(rerun);
+        assertEquals(0, script.code(), script.err());
+        assertEquals(session.out().substring(0, session.out().indexOf("wrote ")), script.out());
+        assertTrue(script.out().lines().count() >= 4, script.out());
+    }
+
+    @Test
+    void valuesWithoutAScriptFormAreNamedWhenSaving() throws IOException {
+        Path saved = dir.resolve("alias.ctr");
+        Run r = repl("let alias = Gamma\n:write " + saved + "\n");
+        assertTrue(r.out().contains("(1 value has no script form and is left as comments)"), r.out());
+        assertTrue(Files.readString(saved).contains("# let alias"), Files.readString(saved));
+    }
+
+    @Test
     void writingReplacesAFileWholeAndAFailedWriteLeavesItAlone() throws IOException {
         Path target = dir.resolve("defs.ctr");
         Files.writeString(target, "# an older file, much longer than what replaces it\n".repeat(50));
@@ -173,6 +209,12 @@ class StreamReplTest {
         Files.writeString(lib, "let early = \"loaded\"\n");
         Run r = repl("show early\n", lib.toString());
         assertEquals("loaded\n", r.out());
+    }
+
+    @Test
+    void javaDetailOnlyWithDebug() {
+        assertFalse(repl("show nope\n").err().contains("\tat dev.contour."));
+        assertTrue(repl("show nope\n", "--debug").err().contains("\tat dev.contour."));
     }
 
     @Test

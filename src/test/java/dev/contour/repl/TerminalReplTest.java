@@ -1,6 +1,7 @@
 package dev.contour.repl;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Files;
@@ -110,6 +111,7 @@ class TerminalReplTest {
                 t.raise(Terminal.Signal.INT); // again, in case the first came before the work began
                 Thread.sleep(100);
             }
+            t.awaitText("(restoring the session from its 2 earlier inputs)\n");
             t.awaitText("contour 4> ");
             t.type("show kept\n");
             t.awaitText("kept = s + t\n");
@@ -117,6 +119,25 @@ class TerminalReplTest {
             t.awaitText("unknown name 'z'");
             t.type(":end\n");
             assertEquals(2, t.finish());
+        }
+    }
+
+    @Test
+    void ctrlCDuringAShowNeedsNoRestoring() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("vars s, t\nlet kept = s + t\n");
+            t.awaitText("contour 3> ");
+            t.type("show sum i in 1..1000000 : (s + i*t)^20\n");
+            t.awaitText("(s + i*t)^20\n");
+            while (!t.screen().contains("interrupted\n")) {
+                t.raise(Terminal.Signal.INT);
+                Thread.sleep(100);
+            }
+            t.awaitText("contour 4> ");
+            t.type("kept^2\n");
+            t.awaitText("kept^2 = s^2 + 2*s*t + t^2\n");
+            assertFalse(t.screen().contains("restoring"), t.screen());
+            assertEquals(0, t.finish());
         }
     }
 }
