@@ -30,7 +30,11 @@ statement
 
 block : '{' statement* '}' ;
 
-ruleName : IDENT ('-' IDENT)* ;
+ruleName : ruleWord ('-' ruleWord)* ;
+// Kebab-case rule names may use the language's keywords as words (gamma-shift-by-one, sum-of-poch).
+ruleWord : IDENT | COLLECTED | 'as' | 'at' | 'becomes' | 'by' | 'check' | 'def' | 'derive' | 'factored' | 'for'
+         | 'in' | 'let' | 'normalized' | 'rule' | 'rules' | 'show' | 'solve' | 'step' | 'sum' | 'unknown' | 'use'
+         | 'using' | 'vars' | 'when' | 'with' | 'within' ;
 
 // Which rule libraries a derivation uses (default: the rules the session has loaded), and its
 // limits, e.g. 'within 500 steps, 2000 nodes, 5 seconds' (the unit is checked by the engine).

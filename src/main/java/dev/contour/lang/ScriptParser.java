@@ -114,7 +114,7 @@ public final class ScriptParser {
             for (int i = 2; i < r.expr().size(); i++) {
                 guards.add(expr(r.expr(i)));
             }
-            String name = String.join("-", names(r.ruleName().IDENT()));
+            String name = String.join("-", r.ruleName().ruleWord().stream().map(ParserRuleContext::getText).toList());
             out.add(new Stmt.Rule(name, expr(r.expr(0)), expr(r.expr(1)), guards, span));
         } else if (c instanceof DeriveStatementContext d) {
             out.add(new Stmt.Derive(expr(d.expr()), source(d.expr()), ruleFiles(d.usingClause()),

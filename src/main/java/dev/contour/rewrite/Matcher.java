@@ -332,14 +332,21 @@ final class Matcher {
                     ac(op, others, new Operands(left, operands.leaf()), x, allowRest, literalTaken, out);
                 }
             }
+            if (!canMatchLeaf(p)) {
+                return;
+            }
             List<Expression> candidates = new ArrayList<>(op.pieces(operands.leaf()));
             if (candidates.size() > 1) {
                 candidates.add(operands.leaf());
             }
             for (Expression piece : candidates) {
-                Expression leafLeft = op.remove(operands.leaf(), piece);
-                for (Map<String, Term> x : match(p, Terms.of(piece), b)) {
-                    ac(op, others, new Operands(operands.items(), leafLeft), x, allowRest, literalTaken, out);
+                List<Map<String, Term>> found = match(p, Terms.of(piece), b);
+                if (found.isEmpty()) {
+                    continue;
+                }
+                Operands left = new Operands(operands.items(), op.remove(operands.leaf(), piece));
+                for (Map<String, Term> x : found) {
+                    ac(op, others, left, x, allowRest, literalTaken, out);
                 }
             }
             return;
@@ -350,6 +357,20 @@ final class Matcher {
             return;
         }
         distribute(op, parts, operands, b, allowRest, out);
+    }
+
+    /** Whether {@code p} could match a rational leaf (calls never do), so that leaves are split only when useful. */
+    private static boolean canMatchLeaf(Pattern p) {
+        if (p instanceof Pattern.Variable || p instanceof Pattern.Literal) {
+            return true;
+        }
+        if (p instanceof Pattern.Sum s) {
+            return s.parts().stream().allMatch(Matcher::canMatchLeaf);
+        }
+        if (p instanceof Pattern.Product q) {
+            return q.factors().stream().allMatch(Matcher::canMatchLeaf);
+        }
+        return p instanceof Pattern.Power w && w.exponent() == -1 && canMatchLeaf(w.base());
     }
 
     /** The operands without a number or a bound variable's value, or null when it is not there. */

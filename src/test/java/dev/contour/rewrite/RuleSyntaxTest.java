@@ -57,4 +57,10 @@ class RuleSyntaxTest {
         assertEquals(1, e.span().line());
         assertEquals(26, e.span().column());
     }
+
+    @Test
+    void ruleNamesMayUseKeywordsAsWords() {
+        Stmt.Rule r = assertInstanceOf(Stmt.Rule.class, one("rule shift-by-one-step : Gamma(@x + 1) becomes @x*Gamma(@x)"));
+        assertEquals("shift-by-one-step", r.name());
+    }
 }

@@ -25,6 +25,12 @@ final class TestTerms {
             if (e instanceof Expr.Name n) {
                 return new ExprValue(Expression.variable(n.name()));
             }
+            if (e instanceof Expr.Number n) {
+                return new ExprValue(Expression.constant(dev.contour.algebra.Rational.of(n.numerator(), n.denominator())));
+            }
+            if (e instanceof Expr.Negate n) {
+                return new ExprValue(((ExprValue) evaluate(n.operand())).value().negate());
+            }
             throw new IllegalArgumentException("test terms use names, numbers and calls only: " + e);
         }
 
