@@ -20,9 +20,10 @@ public final class ReplCommand implements Subcommand {
     private static final String USAGE = """
             usage: contour repl [OPTIONS] [FILE...]
               FILE...          scripts to run in the session before the first prompt
-              --history=FILE   keep typed lines in FILE (default: $%s, else ~/.contour_history)
+              --history FILE   keep typed lines in FILE (default: $%s, else ~/.contour_history);
+                               also --history=FILE
               --no-history     keep no history
-              --latex, --json, --rules=DIR, --debug   as for 'contour run'
+              --latex, --json, --rules DIR, --debug   as for 'contour run'
             """.formatted(ReplSettings.HISTORY_VARIABLE);
 
     @Override
@@ -42,7 +43,11 @@ public final class ReplCommand implements Subcommand {
         boolean debug = false;
         Path history = ReplSettings.defaultHistoryFile();
         List<String> files = new ArrayList<>();
-        for (String a : args) {
+        for (int i = 0; i < args.size(); i++) {
+            String a = args.get(i);
+            if ((a.equals("--rules") || a.equals("--history")) && i + 1 < args.size()) {
+                a = a + "=" + args.get(++i); // the spaced form, as 'contour run' takes it
+            }
             if (a.equals("--latex")) {
                 format = OutputFormat.LATEX;
             } else if (a.equals("--json")) {

@@ -218,6 +218,16 @@ class StreamReplTest {
     }
 
     @Test
+    void rulesAndHistoryTakeTheirValueSpacedOrAfterAnEqualsSign() throws IOException {
+        Path rules = Files.createDirectories(dir.resolve("my-rules"));
+        Files.writeString(rules.resolve("toy.ctr"), "let from_library = \"found\"\n");
+        assertEquals("found\n", repl("use \"toy.ctr\"\nshow from_library\n", "--rules", rules.toString()).out());
+        assertEquals("found\n", repl("use \"toy.ctr\"\nshow from_library\n", "--rules=" + rules).out());
+        Run r = repl("show 1\n", "--history", dir.resolve("h").toString());
+        assertEquals("1\n", r.out(), r.err());
+    }
+
+    @Test
     void badOptionsAreUsageErrors() {
         Run r = repl("", "--frobnicate");
         assertEquals(Main.BAD_INPUT, r.code());
