@@ -69,7 +69,7 @@ substitution
     ;
 assignment : target '=' arith ;
 target : IDENT ('[' arith (',' arith)* ']')? ;
-condition : arith ('==' arith)? ;
+condition : expr ('==' expr)? ;
 
 arith
     : primary                                                         # primaryArith

@@ -209,7 +209,7 @@ public final class ScriptParser {
         if (c instanceof SolveExprContext s) {
             List<Expr.Condition> conditions = new ArrayList<>();
             for (ConditionContext k : s.condition()) {
-                conditions.add(new Expr.Condition(arith(k.arith(0)), k.arith().size() > 1 ? arith(k.arith(1)) : null, span(k)));
+                conditions.add(new Expr.Condition(expr(k.expr(0)), k.expr().size() > 1 ? expr(k.expr(1)) : null, span(k)));
             }
             return new Expr.Solve(conditions, names(s.IDENT()), span);
         }
