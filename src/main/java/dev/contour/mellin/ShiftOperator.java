@@ -7,8 +7,10 @@ import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 
+import java.util.ArrayList;
 import java.util.Collections;
 import java.util.HashMap;
+import java.util.List;
 import java.util.Map;
 import java.util.SortedMap;
 import java.util.TreeMap;
@@ -139,17 +141,24 @@ public final class ShiftOperator {
     /**
      * The operator applied to {@code f}: {@code sum c * f(shifted)}.
      *
-     * <p>Accumulates all contributions per collected monomial before building the result, so a large
-     * amplitude is merged once instead of once per term.
+     * <p>All contributions to one collected monomial are gathered first and added with
+     * {@link RationalFunction#sum}, so each large common denominator is built once, not once per term.
      */
     public Expression apply(Expression f) {
-        Map<Monomial, RationalFunction> acc = new HashMap<>();
+        Map<Monomial, List<RationalFunction>> parts = new HashMap<>();
         for (Map.Entry<Shift, Expression> e : terms.entrySet()) {
             Shift sh = e.getKey();
             Expression moved = sh.isNone() ? f : f.substituteLinear(sh.substitution());
-            accumulate(acc, e.getValue(), moved);
+            for (Map.Entry<Monomial, RationalFunction> x : e.getValue().terms().entrySet()) {
+                for (Map.Entry<Monomial, RationalFunction> y : moved.terms().entrySet()) {
+                    parts.computeIfAbsent(x.getKey().multiply(y.getKey()), k -> new ArrayList<>())
+                            .add(x.getValue().multiply(y.getValue()));
+                }
+            }
         }
-        return Expression.of(acc);
+        Map<Monomial, RationalFunction> out = new HashMap<>();
+        parts.forEach((m, list) -> out.put(m, list.size() == 1 ? list.get(0) : RationalFunction.sum(list)));
+        return Expression.of(out);
     }
 
     /** Adds {@code c * g} into {@code acc}, term by term. */
