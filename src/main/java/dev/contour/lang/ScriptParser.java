@@ -350,7 +350,34 @@ public final class ScriptParser {
             return "";
         }
         String raw = start.getInputStream().getText(Interval.of(start.getStartIndex(), stop.getStopIndex()));
-        return raw.replaceAll("#[^\\n]*", " ").replaceAll("\\s+", " ").trim();
+        StringBuilder out = new StringBuilder(raw.length());
+        boolean space = false;
+        boolean inString = false;
+        for (int i = 0; i < raw.length(); i++) {
+            char ch = raw.charAt(i);
+            if (!inString && ch == '#') {
+                while (i + 1 < raw.length() && raw.charAt(i + 1) != '\n') {
+                    i++;
+                }
+                space = true;
+            } else if (!inString && Character.isWhitespace(ch)) {
+                space = true;
+            } else {
+                if (space && out.length() > 0) {
+                    out.append(' ');
+                }
+                space = false;
+                if (inString && ch == '\\' && i + 1 < raw.length()) {
+                    out.append(ch).append(raw.charAt(++i));
+                    continue;
+                }
+                if (ch == '"') {
+                    inString = !inString;
+                }
+                out.append(ch);
+            }
+        }
+        return out.toString();
     }
 
     private Span span(ParserRuleContext c) {

@@ -149,4 +149,10 @@ class ScriptParserTest {
         assertInstanceOf(ContourException.class, thrown[0]);
         assertTrue(thrown[0].getMessage().contains("nests too deeply"));
     }
+
+    @Test
+    void labelsFoldWhiteSpaceAndCommentsButKeepStrings() {
+        Stmt.Show s = (Stmt.Show) ScriptParser.parseScript("show f(1,   # note\n   \"a  # b \\\" c\")", "t.ctr").get(0);
+        assertEquals("f(1, \"a  # b \\\" c\")", s.label());
+    }
 }
