@@ -97,10 +97,10 @@ final class ExactPropagation {
             if (v == null) {
                 at = i;
             } else {
-                addScaled(acc, v, Rational.of(row.coefficient(i)).negate());
+                addScaled(acc, v, row.rational(i).negate());
             }
         }
-        Rational inv = Rational.of(row.coefficient(at)).inverse();
+        Rational inv = row.rational(at).inverse();
         for (int j = 0; j <= k; j++) {
             if (!acc[j].isZero()) {
                 acc[j] = acc[j].multiply(inv);

@@ -134,6 +134,11 @@ final class IntegerRow {
         return cols.length;
     }
 
+    /** The coefficient as a Rational, without a BigInteger when it fits a long. */
+    Rational rational(int i) {
+        return small != null ? Rational.of(small[i]) : Rational.of(big[i]);
+    }
+
     BigInteger coefficient(int i) {
         return small != null ? BigInteger.valueOf(small[i]) : big[i];
     }

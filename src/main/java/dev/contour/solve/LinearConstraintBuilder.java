@@ -60,25 +60,30 @@ public final class LinearConstraintBuilder {
         List<String> vars = src.variables();
         Applier apply = applier(c.condition, vars);
         int n = src.count();
-        int chunks = (n + CHUNK - 1) / CHUNK;
-        List<Map<Object, Accumulator>> parts = IntStream.range(0, chunks).parallel().mapToObj(k -> {
-            Map<Object, Accumulator> local = new HashMap<>();
-            for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
-                Piece piece = src.piece(i);
-                int col = piece.column;
-                for (int j = 0; j < piece.terms.size(); j++) {
-                    Monomial m = piece.monomials.get(j);
-                    apply.to(piece.terms.get(j), m, (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
-                }
+        AtomicLong pieces = new AtomicLong();
+        // one map per fork-join leaf, merged pairwise (the smaller into the larger) as leaves finish
+        return IntStream.range(0, n).parallel().collect(Holder::new, (holder, i) -> {
+            Map<Object, Accumulator> local = holder.map;
+            Piece piece = src.piece(i);
+            int col = piece.column;
+            for (int j = 0; j < piece.terms.size(); j++) {
+                apply.to(piece.terms.get(j), piece.monomials.get(j),
+                        (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
             }
-            progress.generated(generated.addAndGet(local.size()));
-            return local;
-        }).toList();
-        Map<Object, Accumulator> all = parts.isEmpty() ? new HashMap<>() : parts.get(0);
-        for (int k = 1; k < parts.size(); k++) {
-            parts.get(k).forEach((key, acc) -> all.merge(key, acc, Accumulator::merge));
-        }
-        return all;
+            if (pieces.incrementAndGet() % CHUNK == 0) {
+                progress.generated(generated.get() + local.size());
+            }
+        }, (left, right) -> {
+            Map<Object, Accumulator> big = left.map.size() >= right.map.size() ? left.map : right.map;
+            Map<Object, Accumulator> small = big == left.map ? right.map : left.map;
+            small.forEach((key, acc) -> big.merge(key, acc, Accumulator::merge));
+            left.map = big;
+        }).map;
+    }
+
+    /** A swappable map, so that merging leaves never copies the larger one. */
+    private static final class Holder {
+        Map<Object, Accumulator> map = new HashMap<>(1 << 12);
     }
 
     /** Applies a condition to one factored term under a root key. */

@@ -28,6 +28,16 @@ final class LinearForm {
         this.coef = coef;
     }
 
+    /** c + a v_0 + b v_1 with small integer coefficients (the integer view is known up front). */
+    static LinearForm ofIntegers(long c, long a, long b) {
+        LinearForm f = new LinearForm(Rational.of(c), new Rational[] {Rational.of(a), Rational.of(b)});
+        if (Math.abs(c) < (1L << 31) && Math.abs(a) < (1L << 31) && Math.abs(b) < (1L << 31)) {
+            f.integral = new long[] {c, a, b};
+        }
+        f.integralKnown = true;
+        return f;
+    }
+
     static LinearForm constant(Rational c, int n) {
         Rational[] z = new Rational[n];
         Arrays.fill(z, Rational.ZERO);
@@ -188,6 +198,11 @@ final class LinearForm {
 
     /** If this form is lambda * (other - c) for some lambda, c, returns c; otherwise null. */
     Rational levelOf(LinearForm other) {
+        long[] x = integral();
+        long[] y = other.integral();
+        if (x != null && y != null) {
+            return levelOfIntegers(x, y);
+        }
         int p = other.pivot();
         if (p < 0 || coef[p].isZero()) {
             return null;
@@ -200,6 +215,28 @@ final class LinearForm {
         }
         // this = lambda * other - lambda * c  =>  c = (lambda * other.constant - constant) / lambda
         return other.constant.subtract(constant.divide(lambda));
+    }
+
+    /** levelOf for integer forms: this = lambda (other - c) with word arithmetic (entries below 2^31). */
+    private static Rational levelOfIntegers(long[] x, long[] y) {
+        int p = -1;
+        for (int i = 1; i < y.length; i++) {
+            if (y[i] != 0) {
+                p = i;
+                break;
+            }
+        }
+        if (p < 0 || x[p] == 0) {
+            return null;
+        }
+        // lambda = x[p] / y[p]; need x[i] * y[p] == y[i] * x[p] for every variable
+        for (int i = 1; i < y.length; i++) {
+            if (x[i] * y[p] != y[i] * x[p]) {
+                return null;
+            }
+        }
+        // c = y0 - x0 / lambda = (y0 x[p] - x0 y[p]) / x[p]
+        return Rational.of(y[0] * x[p] - x[0] * y[p], x[p]);
     }
 
     static Map<String, Rational> pointMap(List<String> vars, Rational[] point) {

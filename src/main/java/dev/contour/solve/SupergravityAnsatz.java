@@ -34,6 +34,8 @@ public final class SupergravityAnsatz implements Constraint.PieceSource {
 
     private final int p;
     private final List<int[]> ijk = new ArrayList<>();
+    /** sigma^a tau^b for a + b <= p, shared by all pieces. */
+    private final Monomial[][] monomials;
 
     public SupergravityAnsatz(int p) {
         if (p < 2) {
@@ -43,6 +45,13 @@ public final class SupergravityAnsatz implements Constraint.PieceSource {
         for (int i = 0; i <= p - 2; i++) {
             for (int j = 0; i + j <= p - 2; j++) {
                 ijk.add(new int[] {i, j, p - 2 - i - j});
+            }
+        }
+        monomials = new Monomial[p + 1][];
+        for (int a = 0; a <= p; a++) {
+            monomials[a] = new Monomial[p + 1 - a];
+            for (int b = 0; a + b <= p; b++) {
+                monomials[a][b] = monomial(a, b);
             }
         }
     }
@@ -79,12 +88,13 @@ public final class SupergravityAnsatz implements Constraint.PieceSource {
             List<LinearForm> forms = new ArrayList<>();
             List<Integer> exps = new ArrayList<>();
             // ((2p - s)/2)_m^2 ((2p - t)/2)_n^2 ((2p - u)/2)_{2-m-n}^2 with u = 4p - s - t
+            // (2p + 2l - s)^2 = (s - 2p - 2l)^2: written monic, so no rescaling is needed later
             for (int l = 0; l < m; l++) {
-                forms.add(form(-1, 0, 2 * p + 2 * l));
+                forms.add(form(1, 0, -2 * p - 2 * l));
                 exps.add(2);
             }
             for (int l = 0; l < n; l++) {
-                forms.add(form(0, -1, 2 * p + 2 * l));
+                forms.add(form(0, 1, -2 * p - 2 * l));
                 exps.add(2);
             }
             for (int l = 0; l < 2 - m - n; l++) {
@@ -96,14 +106,15 @@ public final class SupergravityAnsatz implements Constraint.PieceSource {
             exps.add(-1);
             forms.add(form(0, 1, -(2 * p - 2 - 2 * j + 2 * n)));
             exps.add(-1);
-            forms.add(form(-1, -1, 2 * p - 2 + 2 * i + 2 * m + 2 * n));
+            // 2p - 2 + 2i + 2m + 2n - s - t = -(s + t - ...): monic, with the sign in the coefficient
+            forms.add(form(1, 1, -(2 * p - 2 + 2 * i + 2 * m + 2 * n)));
             exps.add(-1);
-            // 2^-2 per Pochhammer factor pair: each form above is 2x the Pochhammer factor
-            Rational scale = Rational.of(1, 1L << (2 * 2));
+            // 2^-2 per Pochhammer factor pair (each form is 2x the Pochhammer factor), and -1 from the u pole
+            Rational scale = Rational.of(-1, 1L << (2 * 2));
             for (int c = 1; c < entry.length; c++) {
                 FactoredTerm t = FactoredTerm.of(scale.multiply(Rational.of(entry[c][2])), forms, exps, null);
                 if (t != null) {
-                    ms.add(monomial(i + entry[c][0], j + entry[c][1]));
+                    ms.add(monomials[i + entry[c][0]][j + entry[c][1]]);
                     ts.add(t);
                 }
             }
@@ -127,7 +138,7 @@ public final class SupergravityAnsatz implements Constraint.PieceSource {
     }
 
     private static LinearForm form(long a, long b, long c) {
-        return new LinearForm(Rational.of(c), new Rational[] {Rational.of(a), Rational.of(b)});
+        return LinearForm.ofIntegers(c, a, b);
     }
 
     private static Monomial monomial(int sigma, int tau) {

@@ -203,9 +203,8 @@ final class TermConditions {
                     continue;
                 }
                 long w0 = -beta[g] / gamma[g];
-                Rational num = t.coefficient.divide(Rational.of(gamma[g]));
                 long acc = 1;
-                long den = 1;
+                long den = gamma[g];
                 for (int i = 0; i < k; i++) {
                     if (i == li || i == g) {
                         continue;
@@ -228,7 +227,7 @@ final class TermConditions {
                 }
                 LinearForm restricted = new LinearForm(Rational.of(-w0), new Rational[] {Rational.ONE});
                 keys.add(new Step(at, "line", restricted, -1));
-                values.add(num.multiply(Rational.of(acc, den)));
+                values.add(t.coefficient.multiply(Rational.of(acc, den)));
             }
             for (int i = 0; i < keys.size(); i++) {
                 sink.add(keys.get(i), values.get(i));

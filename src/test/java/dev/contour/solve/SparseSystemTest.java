@@ -74,6 +74,61 @@ class SparseSystemTest {
         }
     }
 
+    @Property(tries = 100)
+    void plantedContradictionsAreFoundAndTheReportedSetIsMinimal(@ForAll long seed,
+            @ForAll @IntRange(min = 1, max = 12) int n, @ForAll @IntRange(min = 1, max = 12) int m) {
+        Random rnd = new Random(seed);
+        Rational[] planted = new Rational[n];
+        for (int i = 0; i < n; i++) {
+            planted[i] = Rational.of(rnd.nextInt(11) - 5);
+        }
+        List<Map<Integer, Rational>> rows = new ArrayList<>();
+        List<Rational> rhs = new ArrayList<>();
+        for (int r = 0; r < m; r++) {
+            Map<Integer, Rational> row = new HashMap<>();
+            for (int e = 0; e < 1 + rnd.nextInt(Math.min(3, n)); e++) {
+                row.merge(rnd.nextInt(n), Rational.of(rnd.nextInt(7) - 3), Rational::add);
+            }
+            row.values().removeIf(Rational::isZero);
+            if (row.isEmpty()) {
+                row.put(0, Rational.ONE);
+            }
+            Rational b = Rational.ZERO;
+            for (var e : row.entrySet()) {
+                b = b.add(e.getValue().multiply(planted[e.getKey()]));
+            }
+            rows.add(row);
+            rhs.add(b);
+        }
+        // the planted contradiction: twice row 0 plus row m-1, with the right side off by one
+        Map<Integer, Rational> bad = new HashMap<>();
+        rows.get(0).forEach((c, v) -> bad.merge(c, v.multiply(Rational.of(2)), Rational::add));
+        rows.get(m - 1).forEach((c, v) -> bad.merge(c, v, Rational::add));
+        rows.add(bad);
+        rhs.add(rhs.get(0).multiply(Rational.of(2)).add(rhs.get(m - 1)).add(Rational.ONE));
+        Solution.Inconsistent inc = assertInstanceOf(Solution.Inconsistent.class, system(rows, rhs, null, n).solve());
+        java.util.Set<Integer> lines = new java.util.HashSet<>(inc.conflicting().stream().map(Span::line).toList());
+        assertTrue(lines.contains(m + 1), "the planted row is in every conflict here: " + lines);
+        assertInstanceOf(Solution.Inconsistent.class, system(rows, rhs, lines, n).solve());
+        for (int drop : lines) {
+            java.util.Set<Integer> fewer = new java.util.HashSet<>(lines);
+            fewer.remove(drop);
+            assertTrue(!(system(rows, rhs, fewer, n).solve() instanceof Solution.Inconsistent), "not minimal: " + lines);
+        }
+    }
+
+    /** One constraint per row (line r + 1), keeping only the rows whose line is in keep (all if null). */
+    private static SparseSystem system(List<Map<Integer, Rational>> rows, List<Rational> rhs, java.util.Set<Integer> keep, int n) {
+        SparseSystem sys = new SparseSystem(names(n));
+        for (int r = 0; r < rows.size(); r++) {
+            int tag = sys.constraint(new Span("p.ctr", r + 1, 1, 1), "row " + (r + 1));
+            if (keep == null || keep.contains(r + 1)) {
+                sys.addEquation(tag, rows.get(r), rhs.get(r));
+            }
+        }
+        return sys;
+    }
+
     @Test
     void overConstrainedToyNamesTheConflictingLines() {
         // x + y = 1 (line 1), x - y = 0 (line 2), z = 5 (line 3), x = 2 (line 4): lines 1, 2, 4 conflict.
