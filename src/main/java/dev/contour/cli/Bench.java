@@ -23,6 +23,10 @@ final class Bench {
             err.println("contour: no benchmark named '" + args.get(0) + "' (run 'contour bench' for the list)");
             return Main.BAD_INPUT;
         }
+        if (w.report() != null) {
+            w.report().accept(out);
+            return Main.OK;
+        }
         int repeats;
         try {
             repeats = args.size() > 1 ? Integer.parseInt(args.get(1)) : 10;

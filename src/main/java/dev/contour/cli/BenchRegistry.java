@@ -10,8 +10,20 @@ import java.util.TreeMap;
  * {@link Provider} listed in {@code META-INF/services/dev.contour.cli.BenchRegistry$Provider}.
  */
 public final class BenchRegistry {
-    /** One timed workload: {@code body} runs once per repetition. */
-    public record Workload(String name, String description, Runnable body) { }
+    /**
+     * One workload. A timed one ({@code report == null}) runs {@code body} once per repetition; a
+     * report times its own steps and prints a table, so it runs once.
+     */
+    public record Workload(String name, String description, Runnable body, java.util.function.Consumer<java.io.PrintStream> report) {
+        public Workload(String name, String description, Runnable body) {
+            this(name, description, body, null);
+        }
+
+        /** A workload that prints its own table of figures. */
+        public static Workload report(String name, String description, java.util.function.Consumer<java.io.PrintStream> report) {
+            return new Workload(name, description, () -> report.accept(new java.io.PrintStream(java.io.OutputStream.nullOutputStream())), report);
+        }
+    }
 
     /** Contributes workloads. */
     public interface Provider {

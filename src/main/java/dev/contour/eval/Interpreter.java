@@ -742,6 +742,10 @@ public final class Interpreter {
     }
 
     private void tick(Span span) {
+        // The REPL stops a running input by interrupting its thread; honour it at statement and loop boundaries.
+        if (Thread.interrupted()) {
+            throw new ContourException("interrupted", span);
+        }
         if (deadline != Long.MAX_VALUE && System.nanoTime() > deadline) {
             throw new ContourException("the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms", span);
         }

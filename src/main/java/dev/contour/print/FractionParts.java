@@ -6,6 +6,9 @@ import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 import java.math.BigInteger;
 import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashMap;
+import java.util.Map;
 import java.util.List;
 
 /**
@@ -17,6 +20,28 @@ import java.util.List;
  */
 record FractionParts(int sign, BigInteger numeratorScalar, List<LinearFactors.Factor> numerator,
                      BigInteger denominatorScalar, List<LinearFactors.Factor> denominator) {
+
+    /**
+     * The order people write factors in: by their variables (s before t, one-variable factors
+     * before mixed ones), then by the size of the constant term, so s*(s - 1)*(s - 2),
+     * s*(s + 2)*(s + 4) and (s - 2)*(t - 4)*(s + t - 6). The canonical form's own order is an
+     * implementation detail.
+     */
+    static final Comparator<LinearFactors.Factor> DISPLAY_ORDER = Comparator
+            .comparing((LinearFactors.Factor f) -> f.base().totalDegree())
+            .thenComparing(f -> f.base().variables().size())
+            .thenComparing(f -> String.join(",", f.base().variables()))
+            .thenComparing(f -> constantTerm(f).abs())
+            .thenComparing(FractionParts::constantTerm)
+            .thenComparing(f -> f.base().toString());
+
+    private static Rational constantTerm(LinearFactors.Factor f) {
+        Map<String, Rational> origin = new HashMap<>();
+        for (String v : f.base().variables()) {
+            origin.put(v, Rational.ZERO);
+        }
+        return f.base().evaluate(origin);
+    }
 
     static FractionParts of(RationalFunction f, boolean factored) {
         Polynomial num = f.numerator();
@@ -50,6 +75,8 @@ record FractionParts(int sign, BigInteger numeratorScalar, List<LinearFactors.Fa
             }
         }
         scalar = scalar.divide(denScalar);
+        factors.sort(DISPLAY_ORDER);
+        den.sort(DISPLAY_ORDER);
         return new FractionParts(scalar.signum(), scalar.numerator().abs(), List.copyOf(factors),
                 scalar.denominator(), List.copyOf(den));
     }

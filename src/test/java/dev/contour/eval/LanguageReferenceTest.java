@@ -18,12 +18,13 @@ import org.junit.jupiter.api.DynamicTest;
 import org.junit.jupiter.api.TestFactory;
 
 /**
- * The language reference is executable: every {@code contour} snippet in docs/language.md runs in
- * a fresh session and must print its {@code output} block exactly; {@code contour-fails} snippets
- * must print theirs and report a failed check.
+ * The documentation is executable: every {@code contour} snippet in docs/language.md and in the
+ * README's tour runs in a fresh session and must print its {@code output} block exactly;
+ * {@code contour-fails} snippets must print theirs and report a failed check.
  */
 class LanguageReferenceTest {
     private static final Path DOC = Path.of("docs", "language.md");
+    private static final Path README = Path.of("README.md");
     private static final Pattern SNIPPET =
             Pattern.compile("```(contour|contour-fails)\\n(.*?)```\\n(?:```output\\n(.*?)```\\n)?", Pattern.DOTALL);
 
@@ -31,17 +32,26 @@ class LanguageReferenceTest {
 
     @TestFactory
     Stream<DynamicTest> everySnippetRunsAndPrintsItsOutput() throws IOException {
-        String doc = Files.readString(DOC, StandardCharsets.UTF_8);
+        return snippetsOf(DOC, 12);
+    }
+
+    @TestFactory
+    Stream<DynamicTest> theReadmeTourRunsAndPrintsItsOutput() throws IOException {
+        return snippetsOf(README, 6);
+    }
+
+    private static Stream<DynamicTest> snippetsOf(Path file, int atLeast) throws IOException {
+        String doc = Files.readString(file, StandardCharsets.UTF_8);
         List<Snippet> snippets = new ArrayList<>();
         Matcher m = SNIPPET.matcher(doc);
         while (m.find()) {
             snippets.add(new Snippet(snippets.size() + 1, m.group(1).endsWith("fails"), m.group(2), m.group(3)));
         }
-        assertTrue(snippets.size() >= 12, "the reference should show every statement with an example");
+        assertTrue(snippets.size() >= atLeast, file + " should show at least " + atLeast + " runnable examples");
         return snippets.stream().map(s -> DynamicTest.dynamicTest("snippet " + s.number() + ": " + s.code().lines().findFirst().orElse(""), () -> {
             ByteArrayOutputStream buffer = new ByteArrayOutputStream();
             Interpreter i = new Interpreter(InterpreterOptions.to(new PrintStream(buffer, true, StandardCharsets.UTF_8)));
-            RunResult r = i.run(s.code(), DOC.toString());
+            RunResult r = i.run(s.code(), file.toString());
             assertEquals(!s.fails(), r.ok(), "whether the snippet's checks hold");
             if (s.output() != null) {
                 assertEquals(s.output(), buffer.toString(StandardCharsets.UTF_8));

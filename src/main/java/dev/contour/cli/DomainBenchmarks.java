@@ -1,0 +1,21 @@
+package dev.contour.cli;
+
+import dev.contour.mellin.WardBench;
+import dev.contour.numeric.NumericBench;
+import dev.contour.solve.SolveBench;
+
+/** The workloads of the Mellin, solver and numeric parts, each printing its own table. */
+public final class DomainBenchmarks implements BenchRegistry.Provider {
+    @Override
+    public void register(BenchRegistry r) {
+        r.register(BenchRegistry.Workload.report("ward",
+                "build M = R^ M~ for the equal-weight AdS5xS5 ansatz, p = 2..128, then its pole and residue analysis",
+                out -> WardBench.runWard(out, 2, 4, 8, 16, 32, 64, 128)));
+        r.register(BenchRegistry.Workload.report("solve",
+                "solve the equal-weight AdS5xS5 ansatz for polynomial residues, p = 2..512",
+                out -> SolveBench.runSolve(out, 2, 8, 32, 64, 128, 256, 512)));
+        r.register(BenchRegistry.Workload.report("box",
+                "the one-loop box function as a two-variable Mellin-Barnes integral to 15 digits",
+                NumericBench::runBench));
+    }
+}
