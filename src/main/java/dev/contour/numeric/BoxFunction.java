@@ -26,11 +26,20 @@ final class BoxFunction {
         Apcomplex u = zz.multiply(zz.conj());
         Apcomplex one = Apcomplex.ONE;
         Apcomplex v = one.subtract(zz).multiply(one.subtract(zz.conj()));
+        // The factors of s alone and of t alone are remembered per grid line: three products a point.
+        Object tagS = new Object();
+        Object tagT = new Object();
         return (s, t) -> {
-            Apcomplex g = ComplexFunctions.gamma(s.negate()).multiply(ComplexFunctions.gamma(t.negate()))
-                    .multiply(ComplexFunctions.gamma(one.add(s).add(t)));
-            return ComplexFunctions.power(u, s).multiply(ComplexFunctions.power(v, t)).multiply(g.multiply(g));
+            Apcomplex a = ComplexFunctions.remember(tagS, s, x -> square(ComplexFunctions.gamma(x.negate()))
+                    .multiply(ComplexFunctions.power(u, x)));
+            Apcomplex b = ComplexFunctions.remember(tagT, t, x -> square(ComplexFunctions.gamma(x.negate()))
+                    .multiply(ComplexFunctions.power(v, x)));
+            return a.multiply(b).multiply(square(ComplexFunctions.gamma(one.add(s).add(t))));
         };
+    }
+
+    private static Apcomplex square(Apcomplex x) {
+        return x.multiply(x);
     }
 
     static NumericResult viaMellinBarnes(Apcomplex z, int digits, IntegrationLimits limits) {

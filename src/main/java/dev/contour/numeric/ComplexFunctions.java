@@ -100,6 +100,20 @@ public final class ComplexFunctions {
         return polylog(n, z, memo == null ? precisionOf(z) : memo.precision());
     }
 
+    /**
+     * {@code factor.apply(x)}, remembered under {@code tag} for the rest of the running integration
+     * (outside one, simply computed). For a factor of the integrand that depends on one variable
+     * only, such as U^s Gamma(-s)^2, so that a two-variable grid computes it once per grid line. The
+     * tag must identify the function (equal tags, equal functions).
+     */
+    public static Apcomplex remember(Object tag, Apcomplex x, java.util.function.UnaryOperator<Apcomplex> factor) {
+        GridMemo memo = GridMemo.current();
+        if (memo == null) {
+            return factor.apply(x);
+        }
+        return memo.get(GridMemo.Op.USER, tag, x, null, () -> factor.apply(x));
+    }
+
     // ---------------------------------------------------------------- explicit precision
 
     static long precisionOf(Apcomplex z) {

@@ -16,9 +16,9 @@ import org.apfloat.Apcomplex;
 final class GridMemo {
     private static final ThreadLocal<GridMemo> CURRENT = new ThreadLocal<>();
 
-    enum Op { GAMMA, LOG_GAMMA, LOG, POWER, EXP }
+    enum Op { GAMMA, LOG_GAMMA, LOG, POWER, EXP, USER }
 
-    private record Key(Op op, Apcomplex a, Apcomplex b) { }
+    private record Key(Op op, Object tag, Apcomplex a, Apcomplex b) { }
 
     private final long precision;
     private final Map<Key, Apcomplex> values = new ConcurrentHashMap<>();
@@ -56,7 +56,11 @@ final class GridMemo {
     }
 
     Apcomplex get(Op op, Apcomplex a, Apcomplex b, Supplier<Apcomplex> compute) {
-        Key key = new Key(op, a, b == null ? Apcomplex.ZERO : b);
+        return get(op, null, a, b, compute);
+    }
+
+    Apcomplex get(Op op, Object tag, Apcomplex a, Apcomplex b, Supplier<Apcomplex> compute) {
+        Key key = new Key(op, tag, a, b == null ? Apcomplex.ZERO : b);
         Apcomplex known = values.get(key);
         if (known != null) {
             return known;

@@ -17,7 +17,7 @@ public final class NumericBench {
 
     /** What one run measured. */
     record Figures(NumericResult closedForm, double closedFormSeconds, NumericResult integral,
-                   double integralSeconds, long evaluations) {
+                   double integralSeconds, double integralCpuSeconds, long evaluations) {
         double agreementDigits() {
             return -integral.log10RelativeDistance(closedForm.value());
         }
@@ -28,6 +28,7 @@ public final class NumericBench {
         long t0 = System.nanoTime();
         NumericResult closed = BoxFunction.closedForm(z, DIGITS + 5);
         long t1 = System.nanoTime();
+        long cpu0 = processCpuNanos();
         IntegrationLimits limits = IntegrationLimits.defaults().withTimeLimit(Duration.ofMinutes(5)).withProgress(null);
         long[] count = new long[1];
         Integrand2 f = BoxFunction.integrand(z, DIGITS);
@@ -39,7 +40,17 @@ public final class NumericBench {
             return f.at(s, t);
         }, c, c, DIGITS, limits);
         long t2 = System.nanoTime();
-        return new Figures(closed, (t1 - t0) / 1e9, integral, (t2 - t1) / 1e9, count[0]);
+        long cpu1 = processCpuNanos();
+        return new Figures(closed, (t1 - t0) / 1e9, integral, (t2 - t1) / 1e9, (cpu1 - cpu0) / 1e9, count[0]);
+    }
+
+    /** CPU time of this process (all threads), or -1 where the platform does not tell: on a shared machine a fairer figure than wall time. */
+    private static long processCpuNanos() {
+        if (java.lang.management.ManagementFactory.getOperatingSystemMXBean()
+                instanceof com.sun.management.OperatingSystemMXBean os) {
+            return os.getProcessCpuTime();
+        }
+        return -1;
     }
 
     public static void runBench(PrintStream out) {
@@ -47,8 +58,8 @@ public final class NumericBench {
                 + Runtime.getRuntime().availableProcessors() + " processors");
         Figures m = measure();
         out.printf("  closed form (dilogarithms)   %s   %.2f s%n", m.closedForm(), m.closedFormSeconds());
-        out.printf("  Mellin-Barnes integral       %s   %.2f s, %,d integrand evaluations%n",
-                m.integral(), m.integralSeconds(), m.evaluations());
+        out.printf("  Mellin-Barnes integral       %s   %.2f s wall, %.2f s CPU, %,d integrand evaluations%n",
+                m.integral(), m.integralSeconds(), m.integralCpuSeconds(), m.evaluations());
         out.printf("  agreement                    %.1f digits%n", m.agreementDigits());
     }
 

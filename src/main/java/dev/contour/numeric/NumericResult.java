@@ -9,8 +9,9 @@ import org.apfloat.Apfloat;
  * absolute error estimate behind that claim.
  *
  * <p>The value carries exactly {@code digits} significant digits (apfloat precision), so arithmetic
- * done with it downstream keeps the claim. When the value is zero the claim is about the absolute
- * error only and {@code digits} is 0.
+ * done with it downstream keeps the claim; a real or imaginary part smaller than the error estimate
+ * is reported as zero. When the value is zero the claim is about the absolute error only and
+ * {@code digits} is 0.
  */
 public record NumericResult(Apcomplex value, int digits, Apfloat errorEstimate) {
 
@@ -28,6 +29,12 @@ public record NumericResult(Apcomplex value, int digits, Apfloat errorEstimate) 
      * those the error leaves intact, never more than {@code maxDigits}.
      */
     static NumericResult of(Apcomplex value, double log10Error, int maxDigits) {
+        // A real or imaginary part below the error is zero as far as the claim goes.
+        if (!value.imag().isZero() && Magnitudes.log10Abs(value.imag()) < log10Error) {
+            value = value.real();
+        } else if (!value.real().isZero() && Magnitudes.log10Abs(value.real()) < log10Error) {
+            value = new Apcomplex(Apfloat.ZERO, value.imag());
+        }
         double log10Value = Magnitudes.log10Abs(value);
         int digits = value.isZero() ? 0
                 : (int) Math.max(0, Math.min(maxDigits, Math.floor(log10Value - log10Error)));

@@ -137,6 +137,37 @@ class MellinBarnesTest {
     }
 
     @Test
+    void rememberedFactorsAreComputedOncePerGridLine() {
+        // A separable integrand: (1/2 pi i)^2 int int Gamma(-s)Gamma(1+s) x^s Gamma(-t)Gamma(1+t) y^t = 1/((1+x)(1+y))
+        // (the binomial series with a = 1, common practice), with each factor remembered.
+        int digits = 10;
+        long wp = MellinBarnes.workingPrecision(digits);
+        Apcomplex x = new Apfloat("0.4", wp);
+        Apcomplex y = new Apfloat("1.5", wp);
+        java.util.concurrent.atomic.AtomicLong factorCalls = new java.util.concurrent.atomic.AtomicLong();
+        java.util.concurrent.atomic.AtomicLong points = new java.util.concurrent.atomic.AtomicLong();
+        Object tagS = new Object();
+        Object tagT = new Object();
+        NumericResult r = MellinBarnes.integrate2((s, t) -> {
+            points.incrementAndGet();
+            Apcomplex a = ComplexFunctions.remember(tagS, s, v -> {
+                factorCalls.incrementAndGet();
+                return gamma(v.negate()).multiply(gamma(Apcomplex.ONE.add(v))).multiply(power(x, v));
+            });
+            Apcomplex b = ComplexFunctions.remember(tagT, t, v -> {
+                factorCalls.incrementAndGet();
+                return gamma(v.negate()).multiply(gamma(Apcomplex.ONE.add(v))).multiply(power(y, v));
+            });
+            return a.multiply(b);
+        }, new Apfloat("-0.5"), new Apfloat("-0.5"), digits, QUIET);
+        Apcomplex exact = Apcomplex.ONE.divide(Apcomplex.ONE.add(x).multiply(Apcomplex.ONE.add(y)));
+        assertAccurate(exact, r, digits);
+        assertTrue(factorCalls.get() * 10 < points.get(), () -> factorCalls + " factor calls for " + points + " points");
+        // Outside an integration nothing is remembered: the factor is simply computed.
+        assertEquals(new Apfloat(4), ComplexFunctions.remember(tagS, new Apfloat(2), v -> v.multiply(v)));
+    }
+
+    @Test
     void aContourThroughAPoleIsAnError() {
         // Gamma(-s) has a pole at s = 0, on the contour Re s = 0.
         ContourException e = assertThrows(ContourException.class, () -> MellinBarnes.integrate1(

@@ -12,9 +12,9 @@ class NumericBenchTest {
     @Test
     void boxFunctionToFifteenDigits() {
         NumericBench.Figures m = NumericBench.measure();
-        System.out.printf("numeric bench: box function, %d digits: integral %s in %.2f s (%,d evaluations); "
-                        + "closed form %.2f s; agreement %.1f digits%n", NumericBench.DIGITS, m.integral(),
-                m.integralSeconds(), m.evaluations(), m.closedFormSeconds(), m.agreementDigits());
+        System.out.printf("numeric bench: box function, %d digits: integral %s in %.2f s wall, %.2f s CPU "
+                        + "(%,d evaluations); closed form %.2f s; agreement %.1f digits%n", NumericBench.DIGITS, m.integral(),
+                m.integralSeconds(), m.integralCpuSeconds(), m.evaluations(), m.closedFormSeconds(), m.agreementDigits());
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363.
         assertTrue(m.integral().digits() >= NumericBench.DIGITS, m.integral()::toString);
         assertTrue(m.agreementDigits() >= m.integral().digits() - 0.5, () -> m.agreementDigits() + " digits agree");
