@@ -261,7 +261,8 @@ public final class Expression {
 
     /** Simultaneous substitution for inner and collected variables. */
     public Expression substitute(Map<String, Expression> values) {
-        Expression result = ZERO;
+        // One accumulator for all terms (repeated add would copy the map once per term), normalised at the end.
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         Map<String, Map<Integer, Expression>> powers = new HashMap<>();
         for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
             Expression term = substituteCoefficient(t.getValue(), values);
@@ -274,9 +275,11 @@ public final class Expression {
                 term = term.multiply(powers.computeIfAbsent(v.getKey(), k -> new HashMap<>())
                         .computeIfAbsent(v.getValue(), b::pow));
             }
-            result = result.add(term);
+            for (Map.Entry<Monomial, RationalFunction> r : term.terms.entrySet()) {
+                accumulate(out, r.getKey(), r.getValue());
+            }
         }
-        return result;
+        return normalised(out);
     }
 
     private static Expression substituteCoefficient(RationalFunction c, Map<String, Expression> values) {

@@ -543,8 +543,8 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (d.isLinear() && !mayVanishOn(d)) {
             return null;
         }
-        if (d.vars.length == 1 && d.exps.length == 2 && d.exps[0][0] == 1) {
-            return divideLinearUnivariateOrNull(d);
+        if (d.isLinear()) {
+            return divideLinearOrNull(d);
         }
         String[] u = vars;
         int[][] dex = d.expsOver(u);
@@ -633,6 +633,18 @@ public final class Polynomial implements Comparable<Polynomial> {
         }
         val[xi] = Math.floorMod(-rest, p) * ModularPoly.inverse(a, p) % p;
         int[][] me = expsOver(u);
+        long[][] pow = new long[u.length][];
+        for (int v = 0; v < u.length; v++) {
+            int d = 0;
+            for (int[] e : me) {
+                d = Math.max(d, e[v]);
+            }
+            pow[v] = new long[d + 1];
+            pow[v][0] = 1;
+            for (int k = 1; k <= d; k++) {
+                pow[v][k] = pow[v][k - 1] * val[v] % p;
+            }
+        }
         long sum = 0;
         for (int t = 0; t < me.length; t++) {
             long c = modP(coeffs[t], p);
@@ -640,10 +652,7 @@ public final class Polynomial implements Comparable<Polynomial> {
                 return true;
             }
             for (int v = 0; v < u.length && c != 0; v++) {
-                int e = me[t][v];
-                if (e > 0) {
-                    c = c * powMod(val[v], e, p) % p;
-                }
+                c = c * pow[v][me[t][v]] % p;
             }
             sum = (sum + c) % p;
         }
@@ -668,33 +677,33 @@ public final class Polynomial implements Comparable<Polynomial> {
         return c.numerator().mod(bp).longValue() * ModularPoly.inverse(d, p) % p;
     }
 
-    private static long powMod(long b, int e, long p) {
-        long r = 1;
-        while (e > 0) {
-            if ((e & 1) != 0) {
-                r = r * b % p;
+    /**
+     * Synthetic division by a linear form a*x + m (x its leading variable, m free of x): the
+     * quotient's coefficients in x follow from the top down, q[k-1] = (c[k] - m*q[k]) / a, and the
+     * remainder c[0] - m*q[0] must vanish.
+     */
+    Polynomial divideLinearOrNull(Polynomial d) {
+        String x = null;
+        for (int v = 0; v < d.vars.length && x == null; v++) {
+            if (d.exps[0][v] == 1) {
+                x = d.vars[v];
             }
-            b = b * b % p;
-            e >>= 1;
         }
-        return r;
-    }
-
-    /** Synthetic division by a univariate a*x + b (the most frequent exact division). */
-    private Polynomial divideLinearUnivariateOrNull(Polynomial d) {
-        String x = d.vars[0];
         Rational a = d.coeffs[0];
-        Rational b = d.coeffs[1];
+        Polynomial m = d.subtract(variable(x).multiply(a));
         Polynomial[] c = coefficientsIn(x);
         int n = c.length - 1;
+        if (n < 1) {
+            return null;
+        }
         Polynomial[] q = new Polynomial[n];
         Rational ainv = a.inverse();
         Polynomial carry = ZERO;
         for (int k = n; k >= 1; k--) {
-            carry = c[k].subtract(carry.multiply(b)).multiply(ainv);
+            carry = c[k].subtract(carry.multiply(m)).multiply(ainv);
             q[k - 1] = carry;
         }
-        if (!c[0].subtract(carry.multiply(b)).isZero()) {
+        if (!c[0].subtract(carry.multiply(m)).isZero()) {
             return null;
         }
         return fromCoefficientsIn(x, q);
@@ -718,7 +727,7 @@ public final class Polynomial implements Comparable<Polynomial> {
             base[v] = val == null ? variable(vars[v]) : val;
             powers.add(new HashMap<>());
         }
-        Polynomial result = ZERO;
+        Polynomial[] parts = new Polynomial[exps.length];
         for (int t = 0; t < exps.length; t++) {
             Polynomial term = constant(coeffs[t]);
             for (int v = 0; v < vars.length; v++) {
@@ -728,9 +737,21 @@ public final class Polynomial implements Comparable<Polynomial> {
                     term = term.multiply(powers.get(v).computeIfAbsent(e, k -> base[fv].pow(k)));
                 }
             }
-            result = result.add(term);
+            parts[t] = term;
         }
-        return result;
+        return sum(parts, 0, parts.length);
+    }
+
+    /** Balanced sum, so that n parts cost O(total size * log n) rather than O(n * total size). */
+    static Polynomial sum(Polynomial[] parts, int from, int to) {
+        if (to - from == 0) {
+            return ZERO;
+        }
+        if (to - from == 1) {
+            return parts[from];
+        }
+        int mid = (from + to) >>> 1;
+        return sum(parts, from, mid).add(sum(parts, mid, to));
     }
 
     /** Value at a point; every variable of this polynomial must be given. */
@@ -910,18 +931,11 @@ public final class Polynomial implements Comparable<Polynomial> {
 
     /** Inverse of {@link #coefficientsIn}: sum c[k] * x^k, where the c[k] are free of x. */
     static Polynomial fromCoefficientsIn(String x, Polynomial[] c) {
-        Polynomial xv = variable(x);
-        Polynomial result = ZERO;
-        Polynomial xp = ONE;
+        Polynomial[] parts = new Polynomial[c.length];
         for (int k = 0; k < c.length; k++) {
-            if (!c[k].isZero()) {
-                result = result.add(c[k].multiply(xp));
-            }
-            if (k + 1 < c.length) {
-                xp = xp.multiply(xv);
-            }
+            parts[k] = k == 0 || c[k].isZero() ? c[k] : c[k].multiply(monomial(Rational.ONE, Map.of(x, k)));
         }
-        return result;
+        return sum(parts, 0, parts.length);
     }
 
     /** True when the total degree is exactly 1. */

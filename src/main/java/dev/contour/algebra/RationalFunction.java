@@ -41,6 +41,8 @@ public final class RationalFunction {
     /** The non-linear rest of the denominator, primitive; ONE when absent. */
     private final Polynomial cof;
     private int hash;
+    /** The expanded denominator once computed (benign race: any thread computes the same value). */
+    private Polynomial expanded;
 
     private RationalFunction(Polynomial num, Polynomial[] lin, int[] mult, Polynomial cof) {
         this.num = num;
@@ -90,6 +92,8 @@ public final class RationalFunction {
         Polynomial num;
         final TreeMap<Polynomial, Integer> factors = new TreeMap<>();
         Polynomial cof;
+        /** Linear factors (with repetition) cancelled from the denominator. */
+        final List<Polynomial> removed = new ArrayList<>();
 
         Builder(Polynomial num, Polynomial cof) {
             this.num = num;
@@ -115,6 +119,7 @@ public final class RationalFunction {
                 while (e > 0 && !num.isConstant() && (q = num.divideOrNull(l)) != null) {
                     num = q;
                     e--;
+                    removed.add(l);
                 }
                 factors.put(l, e);
             }
@@ -207,35 +212,98 @@ public final class RationalFunction {
         // Only factors with equal exponents on both sides can cancel from the new numerator: where one
         // side has the higher power, the other side's term carries that factor and the first does not.
         List<Polynomial> shared = new ArrayList<>();
+        // Factor powers making up ma = L/den_a and mb = L/den_b, and the common powers min(ea, eb).
+        List<Polynomial> upA = new ArrayList<>();
+        List<Polynomial> upB = new ArrayList<>();
+        List<Polynomial> common = new ArrayList<>();
         int i = 0;
         int j = 0;
         while (i < lin.length || j < o.lin.length) {
             int c = i == lin.length ? 1 : j == o.lin.length ? -1 : lin[i].compareTo(o.lin[j]);
             if (c < 0) {
                 b.factors.put(lin[i], mult[i]);
-                mb = mb.multiply(lin[i].pow(mult[i]));
+                addPowers(upB, lin[i], mult[i]);
                 i++;
             } else if (c > 0) {
                 b.factors.put(o.lin[j], o.mult[j]);
-                ma = ma.multiply(o.lin[j].pow(o.mult[j]));
+                addPowers(upA, o.lin[j], o.mult[j]);
                 j++;
             } else {
                 int e = Math.max(mult[i], o.mult[j]);
                 b.factors.put(lin[i], e);
-                if (e > mult[i]) {
-                    ma = ma.multiply(lin[i].pow(e - mult[i]));
-                } else if (e > o.mult[j]) {
-                    mb = mb.multiply(lin[i].pow(e - o.mult[j]));
-                } else {
+                addPowers(upA, lin[i], e - mult[i]);
+                addPowers(upB, lin[i], e - o.mult[j]);
+                addPowers(common, lin[i], Math.min(mult[i], o.mult[j]));
+                if (mult[i] == o.mult[j]) {
                     shared.add(lin[i]);
                 }
                 i++;
                 j++;
             }
         }
+        // L/den_a is also den_b divided by the common powers: with a cached expansion of den_b that is
+        // cheaper when few factors are common (a long sum gaining one small term at a time).
+        boolean plain = cof.isOne() && o.cof.isOne();
+        if (plain) {
+            // Expanding a short denominator is cheap, and lets the result carry its own expansion.
+            if (expanded == null && lin.length <= 4) {
+                denominator();
+            }
+            if (o.expanded == null && o.lin.length <= 4) {
+                o.denominator();
+            }
+        }
+        Polynomial lcmExpanded = null;
+        if (plain && o.expanded != null && common.size() < upA.size()) {
+            ma = divideAll(o.expanded, common);
+        } else {
+            ma = ma.multiply(productOf(upA));
+        }
+        if (plain && expanded != null && common.size() < upB.size()) {
+            mb = divideAll(expanded, common);
+        } else {
+            mb = mb.multiply(productOf(upB));
+        }
+        if (plain && (expanded != null || o.expanded != null)) {
+            lcmExpanded = expanded != null ? expanded.multiply(ma) : o.expanded.multiply(mb);
+        }
         b.num = num.multiply(ma).add(o.num.multiply(mb));
         b.cancel(shared, commonCof);
-        return b.build();
+        RationalFunction r = b.build();
+        if (lcmExpanded != null && !r.isZero()) {
+            r.expanded = divideAll(lcmExpanded, b.removed);
+        }
+        return r;
+    }
+
+    private static void addPowers(List<Polynomial> out, Polynomial l, int e) {
+        for (int k = 0; k < e; k++) {
+            out.add(l);
+        }
+    }
+
+    /** Product of linear factors, as a balanced tree (sizes stay even, merges stay short). */
+    private static Polynomial productOf(List<Polynomial> fs) {
+        return productOf(fs, 0, fs.size());
+    }
+
+    private static Polynomial productOf(List<Polynomial> fs, int from, int to) {
+        if (to - from == 0) {
+            return Polynomial.ONE;
+        }
+        if (to - from == 1) {
+            return fs.get(from);
+        }
+        int mid = (from + to) >>> 1;
+        return productOf(fs, from, mid).multiply(productOf(fs, mid, to));
+    }
+
+    /** p divided by linear factors known to divide it (no divisibility pre-test). */
+    private static Polynomial divideAll(Polynomial p, List<Polynomial> fs) {
+        for (Polynomial f : fs) {
+            p = p.divideLinearOrNull(f);
+        }
+        return p;
     }
 
     /**
@@ -577,9 +645,14 @@ public final class RationalFunction {
 
     /** The expanded denominator (product of the factors). */
     public Polynomial denominator() {
-        Polynomial d = cof;
-        for (int i = 0; i < lin.length; i++) {
-            d = d.multiply(lin[i].pow(mult[i]));
+        Polynomial d = expanded;
+        if (d == null) {
+            List<Polynomial> fs = new ArrayList<>();
+            for (int i = 0; i < lin.length; i++) {
+                addPowers(fs, lin[i], mult[i]);
+            }
+            d = productOf(fs).multiply(cof);
+            expanded = d;
         }
         return d;
     }

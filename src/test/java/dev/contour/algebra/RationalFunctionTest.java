@@ -31,6 +31,12 @@ class RationalFunctionTest {
     private static void canonical(RationalFunction... fs) {
         for (RationalFunction f : fs) {
             assertTrue(f.isCanonical(), () -> "not canonical: " + f);
+            // the (possibly cached) expanded denominator is the product of the listed factors
+            Polynomial d = Polynomial.ONE;
+            for (LinearFactors.Factor x : f.denominatorFactors()) {
+                d = d.multiply(x.base().pow(x.multiplicity()));
+            }
+            assertEquals(d, f.denominator());
         }
     }
 
@@ -111,6 +117,25 @@ class RationalFunctionTest {
                 // the point landed on a pole
             }
         }
+    }
+
+    /** Long sums take the cached-expansion path; the result must not depend on the order of addition. */
+    @Property(tries = 30)
+    void longSumsAgreeInAnyOrder(@ForAll("fns") RationalFunction a, @ForAll("fns") RationalFunction b,
+            @ForAll("fns") RationalFunction c, @ForAll("fns") RationalFunction d) {
+        List<RationalFunction> xs = List.of(a, b, c, d, a.negate(), b.multiply(Rational.of(3)), c.multiply(d));
+        RationalFunction forward = RationalFunction.ZERO;
+        for (RationalFunction x : xs) {
+            forward = forward.add(x);
+            canonical(forward);
+        }
+        RationalFunction backward = RationalFunction.ZERO;
+        for (int i = xs.size() - 1; i >= 0; i--) {
+            backward = xs.get(i).add(backward);
+            canonical(backward);
+        }
+        assertEquals(forward, backward);
+        assertEquals(forward, RationalFunction.sum(xs));
     }
 
     @Property(tries = 80)
