@@ -137,8 +137,12 @@ public final class SupergravityAnsatz implements Constraint.PieceSource {
                 "residues of M polynomial at p = " + p);
     }
 
-    private static LinearForm form(long a, long b, long c) {
-        return LinearForm.ofIntegers(c, a, b);
+    /** Forms shared by all pieces, so equation keys compare by identity first. */
+    private final java.util.concurrent.ConcurrentHashMap<java.util.List<Long>, LinearForm> forms =
+            new java.util.concurrent.ConcurrentHashMap<>();
+
+    private LinearForm form(long a, long b, long c) {
+        return forms.computeIfAbsent(java.util.List.of(a, b, c), k -> LinearForm.ofIntegers(c, a, b));
     }
 
     private static Monomial monomial(int sigma, int tau) {

@@ -161,7 +161,22 @@ final class TermConditions {
      * does not fit (a third factor vanishing at P, higher poles, large numbers) takes the general path.
      */
     static final class DoubleResidues {
+        /** The univariate forms w - w0 for small integer w0, shared (keys then compare by identity). */
+        private static final LinearForm[] POINTS = new LinearForm[4096];
+
         private DoubleResidues() { }
+
+        static LinearForm pointForm(long c) {
+            if (c < -2048 || c >= 2048) {
+                return new LinearForm(Rational.of(c), new Rational[] {Rational.ONE});
+            }
+            LinearForm f = POINTS[(int) c + 2048];
+            if (f == null) {
+                f = new LinearForm(Rational.of(c), new Rational[] {Rational.ONE});
+                POINTS[(int) c + 2048] = f;
+            }
+            return f;
+        }
 
         static boolean tryLine(FactoredTerm t, int li, Object key, Sink sink) {
             if (t.cofactor != null || t.forms[li].size() != 2) {
@@ -225,7 +240,7 @@ final class TermConditions {
                         return false;
                     }
                 }
-                LinearForm restricted = new LinearForm(Rational.of(-w0), new Rational[] {Rational.ONE});
+                LinearForm restricted = pointForm(-w0);
                 keys.add(new Step(at, "line", restricted, -1));
                 values.add(t.coefficient.multiply(Rational.of(acc, den)));
             }
