@@ -25,9 +25,10 @@ import java.util.Map;
  *       {@code s + 5/2} as @x = s + 1/2, @n = 2;</li>
  *   <li>for *: the numeric coefficient of a single-term leaf and the rest.</li>
  * </ul>
- * A number written in a sum pattern matches the whole constant part of the leaf (so
- * {@code Gamma(@x + 1)} matches {@code Gamma(s + 1)} but not {@code Gamma(s + 3)}); in a product
- * it divides the coefficient. A variable that is already bound is taken out arithmetically, which
+ * A number written in a sum pattern takes part of the leaf's constant, of the same sign and no
+ * larger (so {@code Gamma(@x + 1)} matches {@code Gamma(s + 3)} with @x = s + 2, but not
+ * {@code Gamma(s)} or {@code Gamma(s - 1)}: shifting rules move constants towards 0 and stop);
+ * in a product it divides the coefficient. A variable that is already bound is taken out arithmetically, which
  * is what lets {@code Gamma(@x + @n)/Gamma(@x)} match {@code Gamma(s + 3)/Gamma(s + 1)} with @n = 2.
  * No part ever matches the empty sum or product. At the root of a rule, the pattern may match part
  * of a sum or product, and the rest is kept beside the replacement.
@@ -196,7 +197,13 @@ final class Matcher {
         }
 
         public Expression removeLiteral(Expression leaf, Expression literal) {
-            return constantPart(leaf).equals(literal) ? leaf.subtract(literal) : null;
+            Expression c = constantPart(leaf);
+            if (c.equals(literal)) {
+                return leaf.subtract(literal);
+            }
+            boolean part = !c.isZero() && c.constantValue().signum() == literal.constantValue().signum()
+                    && literal.constantValue().abs().compareTo(c.constantValue().abs()) < 0;
+            return part ? leaf.subtract(literal) : null;
         }
 
         public List<Expression> pieces(Expression leaf) {
