@@ -219,7 +219,7 @@ public final class MellinBuiltins implements BuiltinProvider {
         List<String> lines = new ArrayList<>();
         ResiduePolynomiality.check(a.expression(0), m.poleForms(), m.variables()).failures()
                 .forEach(f -> lines.add(f.describe()));
-        return new ReportValue("non-polynomial residues", lines, "every residue is polynomial");
+        return new ReportValue("non-polynomial residues", lines, "none (every residue is polynomial)");
     }
 
     private static Value growth(Arguments a, Span span) {

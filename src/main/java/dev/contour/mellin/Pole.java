@@ -2,6 +2,8 @@ package dev.contour.mellin;
 
 import dev.contour.algebra.Polynomial;
 
+import java.util.Comparator;
+
 /**
  * A pole along the hyperplane {@code factor = 0}, of the given order; when the factor is a named
  * form minus a constant the pole is also described as {@code form = location} (e.g. {@code u = 2}).
@@ -12,6 +14,14 @@ import dev.contour.algebra.Polynomial;
  * @param order the multiplicity of the factor
  */
 public record Pole(String form, Polynomial location, Polynomial factor, int order) {
+    /** Named forms first (alphabetically), numeric locations in increasing order, then the rest by text. */
+    public static final Comparator<Pole> DISPLAY_ORDER = Comparator
+            .comparing((Pole p) -> p.form() == null)
+            .thenComparing(p -> p.form() == null ? "" : p.form())
+            .thenComparing(p -> p.location() != null && p.location().isConstant() ? p.location().constantValue() : null,
+                    Comparator.nullsLast(Comparator.naturalOrder()))
+            .thenComparing(p -> String.valueOf(p.factor()));
+
     /** {@code "s = 2"}, or {@code "s + 2*t - 1 = 0"} for a general form. */
     public String describe() {
         return form != null ? form + " = " + location : factor + " = 0";

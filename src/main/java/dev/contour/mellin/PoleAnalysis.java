@@ -29,12 +29,17 @@ public final class PoleAnalysis {
             byMonomial = Collections.unmodifiableSortedMap(new TreeMap<>(byMonomial));
         }
 
-        /** Every pole of any coefficient, with the highest order in which it occurs, in first-seen order. */
+        /**
+         * Every pole of any coefficient, with the highest order in which it occurs, sorted the way
+         * people list them: by form (s, t, u, then general linear forms), then by location.
+         */
         public List<Pole> all() {
             Map<Polynomial, Pole> union = new LinkedHashMap<>();
             byMonomial.values().forEach(list -> list.forEach(p -> union.merge(p.factor(), p,
                     (a, b) -> a.order() >= b.order() ? a : b)));
-            return List.copyOf(union.values());
+            List<Pole> sorted = new ArrayList<>(union.values());
+            sorted.sort(Pole.DISPLAY_ORDER);
+            return List.copyOf(sorted);
         }
 
         /** The poles the allowed set does not admit, with the monomial whose coefficient has them. */

@@ -56,13 +56,19 @@ public final class ResiduePolynomiality {
     /** Checks every coefficient of {@code f} (no unknowns: each collected monomial on its own). */
     public static Result check(Expression f, List<NamedForm> forms, List<String> mellin) {
         List<Failure> failures = new ArrayList<>();
+        // A simultaneous pole shows up twice (the residue at s = 2 keeps t = 4, the one at t = 4
+        // keeps s = 2): report each unordered pair once per coefficient.
+        java.util.Set<List<Object>> seen = new java.util.HashSet<>();
         f.terms().forEach((m, c) -> {
             for (Pole pole : PoleAnalysis.poles(c, forms, mellin)) {
                 String x = residueVariable(pole.factor(), mellin);
                 RationalFunction r = Residues.residueAtFactor(c, x, pole.factor());
                 for (LinearFactors.Factor d : r.denominatorFactors()) {
                     if (PoleAnalysis.mentionsAny(d.base(), mellin)) {
-                        failures.add(new Failure(m, pole, origin(c, pole, x, d, forms, mellin), r));
+                        Pole other = origin(c, pole, x, d, forms, mellin);
+                        if (seen.add(List.of(m, java.util.Set.of(pole.factor(), other.factor())))) {
+                            failures.add(new Failure(m, pole, other, r));
+                        }
                         break;
                     }
                 }

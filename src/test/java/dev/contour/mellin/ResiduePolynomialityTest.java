@@ -57,8 +57,10 @@ class ResiduePolynomialityTest {
         // A planted simultaneous pole: sigma tau / ((s - 2)(t - 4)) has residue 1/(t - 4) at s = 2.
         Expression f = sigma().multiply(tau()).multiply(inv(s().subtract(c(2)).multiply(t().subtract(c(4)))));
         ResiduePolynomiality.Result r = ResiduePolynomiality.check(f, AdS5S5.poleForms(pc(3)), MELLIN);
-        assertEquals(List.of("s = 2 and t = 4 (coefficient of sigma*tau)", "t = 4 and s = 2 (coefficient of sigma*tau)"),
-                r.failures().stream().map(ResiduePolynomiality.Failure::describe).sorted().toList());
+        // The pair is found from both sides (the residue at s = 2 keeps t = 4 and vice versa) and reported once.
+        assertEquals(1, r.failures().size(), r.failures().toString());
+        String pair = r.failures().get(0).describe();
+        assertTrue(pair.equals("s = 2 and t = 4 (coefficient of sigma*tau)") || pair.equals("t = 4 and s = 2 (coefficient of sigma*tau)"), pair);
     }
 
     /** Solves the conditions with unknowns a[i,j,k]; returns the solution family's null basis. */
