@@ -242,19 +242,7 @@ public final class Expression {
             out.put(t.getKey().pow(exponent), t.getValue().pow(exponent));
             return new Expression(out);
         }
-        Expression result = ONE;
-        Expression base = this;
-        int e = exponent;
-        while (e > 0) {
-            if ((e & 1) != 0) {
-                result = result.multiply(base);
-            }
-            e >>= 1;
-            if (e > 0) {
-                base = base.multiply(base);
-            }
-        }
-        return result;
+        return Powers.bySquaring(ONE, this, exponent, Expression::multiply);
     }
 
     // ---------------------------------------------------------------- substitution

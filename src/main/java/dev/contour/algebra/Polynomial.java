@@ -486,19 +486,7 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (exponent < 0) {
             throw new ContourException("negative power of a polynomial: (" + this + ")^" + exponent);
         }
-        Polynomial result = ONE;
-        Polynomial base = this;
-        int e = exponent;
-        while (e > 0) {
-            if ((e & 1) != 0) {
-                result = result.multiply(base);
-            }
-            e >>= 1;
-            if (e > 0) {
-                base = base.multiply(base);
-            }
-        }
-        return result;
+        return Powers.bySquaring(ONE, this, exponent, Polynomial::multiply);
     }
 
     /** this / d when d divides exactly; ContourException otherwise (and for d = 0). */

@@ -230,19 +230,7 @@ public final class Rational implements Comparable<Rational> {
             }
             return inverse().pow(-(long) exponent > Integer.MAX_VALUE ? Integer.MAX_VALUE : -exponent);
         }
-        Rational result = ONE;
-        Rational base = this;
-        int e = exponent;
-        while (e > 0) {
-            if ((e & 1) != 0) {
-                result = result.multiply(base);
-            }
-            e >>= 1;
-            if (e > 0) {
-                base = base.multiply(base);
-            }
-        }
-        return result;
+        return Powers.bySquaring(ONE, this, exponent, Rational::multiply);
     }
 
     public Rational abs() {
