@@ -3,6 +3,7 @@ package dev.contour.mellin;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
+import dev.contour.algebra.ShiftedSum;
 import dev.contour.eval.Arguments;
 import dev.contour.eval.CallableValue;
 import dev.contour.eval.ExprValue;
@@ -74,7 +75,16 @@ public record OperatorValue(ShiftOperator operator) implements OperandValue, Cal
         if (arguments.all().size() != 1 || arguments.positional().size() != 1) {
             throw new ContourException("a shift operator applies to one amplitude: E(M)", span);
         }
-        return new ExprValue(operator.apply(arguments.expression(0)));
+        if (!(arguments.get(0) instanceof ExprValue arg)) {
+            arguments.expression(0); // the error naming the argument
+            throw new IllegalStateException("unreachable");
+        }
+        // E(F(f)) = (E*F)(f): compose instead of collecting the inner application
+        ShiftedSum inner = arg.shiftedSum().orElse(null);
+        ShiftedSum applied = inner != null
+                ? operator.multiply(ShiftOperator.ofBlocks(inner.blocks())).applyDeferred(inner.argument())
+                : operator.applyDeferred(arg.value());
+        return applied != null ? ExprValue.deferred(applied) : new ExprValue(operator.apply(arg.value()));
     }
 
     /** Substitution in the coefficients; a variable the operator shifts cannot be replaced. */

@@ -6,6 +6,7 @@ import dev.contour.algebra.Monomial;
 import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
+import dev.contour.algebra.ShiftedSum;
 
 import java.util.ArrayList;
 import java.util.Collections;
@@ -138,27 +139,32 @@ public final class ShiftOperator {
         return r;
     }
 
-    /**
-     * The operator applied to {@code f}: {@code sum c * f(shifted)}.
-     *
-     * <p>All contributions to one collected monomial are gathered first and added with
-     * {@link RationalFunction#sum}, so each large common denominator is built once, not once per term.
-     */
+    /** The operator applied to {@code f}: {@code sum c * f(shifted)}, collected. */
     public Expression apply(Expression f) {
-        Map<Monomial, List<RationalFunction>> parts = new HashMap<>();
-        for (Map.Entry<Shift, Expression> e : terms.entrySet()) {
-            Shift sh = e.getKey();
-            Expression moved = sh.isNone() ? f : f.substituteLinear(sh.substitution());
-            for (Map.Entry<Monomial, RationalFunction> x : e.getValue().terms().entrySet()) {
-                for (Map.Entry<Monomial, RationalFunction> y : moved.terms().entrySet()) {
-                    parts.computeIfAbsent(x.getKey().multiply(y.getKey()), k -> new ArrayList<>())
-                            .add(x.getValue().multiply(y.getValue()));
-                }
-            }
-        }
-        Map<Monomial, RationalFunction> out = new HashMap<>();
-        parts.forEach((m, list) -> out.put(m, list.size() == 1 ? list.get(0) : RationalFunction.sum(list)));
-        return Expression.of(out);
+        ShiftedSum d = applyDeferred(f);
+        return d != null ? d.value() : ShiftedSum.expandAt(blocks(), f);
+    }
+
+    /**
+     * The operator applied to {@code f}, kept unexpanded (see {@link ShiftedSum}); null when a
+     * shift moves a collected variable of f.
+     */
+    public ShiftedSum applyDeferred(Expression f) {
+        return ShiftedSum.of(blocks(), f);
+    }
+
+    /** The operator as the blocks of a {@link ShiftedSum}. */
+    public List<ShiftedSum.Block> blocks() {
+        List<ShiftedSum.Block> out = new ArrayList<>(terms.size());
+        terms.forEach((sh, c) -> out.add(new ShiftedSum.Block(sh.amounts(), c)));
+        return out;
+    }
+
+    /** The operator whose blocks these are. */
+    public static ShiftOperator ofBlocks(List<ShiftedSum.Block> blocks) {
+        Map<Shift, Expression> t = new HashMap<>();
+        blocks.forEach(b -> t.merge(Shift.of(b.shift()), b.coefficient(), Expression::add));
+        return of(t);
     }
 
     /** Adds {@code c * g} into {@code acc}, term by term. */

@@ -1,6 +1,7 @@
 package dev.contour.solve;
 
 import dev.contour.algebra.Expression;
+import dev.contour.eval.ExprValue;
 import dev.contour.eval.Value;
 import java.util.List;
 
@@ -9,8 +10,12 @@ import java.util.List;
  * expression, waiting for {@code solve ... for a} to supply the unknowns.
  */
 public record ConditionValue(List<Part> parts, String description) implements Value {
-    /** One target expression and the condition on it. */
-    public record Part(Expression target, Constraint.Condition condition) { }
+    /** One target expression (possibly an operator application not yet collected) and the condition on it. */
+    public record Part(ExprValue target, Constraint.Condition condition) {
+        public Part(Expression target, Constraint.Condition condition) {
+            this(new ExprValue(target), condition);
+        }
+    }
 
     public ConditionValue {
         parts = List.copyOf(parts);

@@ -91,6 +91,17 @@ public final class Constraint {
         return new Constraint(split(List.of(target), unknowns, extraVariables(condition)), condition, span, label);
     }
 
+    /**
+     * A constraint on a shift operator applied to an ansatz, read piece by piece without collecting
+     * the sum (see {@link ShiftedPieces}); the collected value is used when the sum has another shape.
+     */
+    public static Constraint on(dev.contour.algebra.ShiftedSum target, List<String> unknowns, Condition condition,
+                                Span span, String label) {
+        ShiftedPieces pieces = ShiftedPieces.of(target, unknowns, extraVariables(condition));
+        return pieces != null ? new Constraint(pieces, condition, span, label)
+                : on(target.value(), unknowns, condition, span, label);
+    }
+
     /** Crossing: target equals map(target), where map is linear (a change of variables times monomials). */
     public static Constraint crossing(Expression target, UnaryOperator<Expression> map, List<String> unknowns,
                                       Span span, String label) {

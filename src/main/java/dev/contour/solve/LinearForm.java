@@ -165,6 +165,17 @@ final class LinearForm {
         return coef[p].isOne() ? this : scale(coef[p].inverse());
     }
 
+    /** The form of v + amounts (a shift of the variables): the same slopes, a moved constant. */
+    LinearForm translate(Rational[] amounts) {
+        Rational c = constant;
+        for (int i = 0; i < coef.length; i++) {
+            if (!coef[i].isZero() && !amounts[i].isZero()) {
+                c = c.add(coef[i].multiply(amounts[i]));
+            }
+        }
+        return c.equals(constant) ? this : new LinearForm(c, coef);
+    }
+
     /** sum_i coef_i * images[i] + constant, the images being forms over another space. */
     LinearForm compose(LinearForm[] images, int newSize) {
         LinearForm out = constant(constant, newSize);

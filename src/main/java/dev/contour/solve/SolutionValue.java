@@ -14,8 +14,18 @@ import dev.contour.print.PlainPrinter;
 import java.util.List;
 import java.util.Map;
 
-/** The language's view of a {@link Solution}: applied with {@code EXPR with sol}, shown by {@code show sol}. */
-public record SolutionValue(Solution solution) implements BindingValue {
+/**
+ * The language's view of a {@link Solution}: applied with {@code EXPR with sol}, shown by {@code show sol}.
+ * Carries the solve's figures (null for a solution derived from another, such as a normalisation).
+ */
+public record SolutionValue(Solution solution, Figures figures) implements BindingValue {
+
+    /** How large the system was and where the time went: building the equations, then solving them. */
+    public record Figures(int unknowns, int equations, double buildSeconds, double solveSeconds) { }
+
+    public SolutionValue(Solution solution) {
+        this(solution, null);
+    }
 
     @Override
     public String kind() {
@@ -28,6 +38,14 @@ public record SolutionValue(Solution solution) implements BindingValue {
             throw new ContourException("the solution is empty: " + conflictText(bad), span);
         }
         if (target instanceof ExprValue e) {
+            // an operator application stays uncollected when the unknowns sit in its argument only
+            var sum = e.shiftedSum().orElse(null);
+            if (sum != null && sum.blocks().stream().noneMatch(b -> mentionsUnknowns(b.coefficient()))) {
+                var moved = dev.contour.algebra.ShiftedSum.of(sum.blocks(), solution.substituteInto(sum.argument()));
+                if (moved != null) {
+                    return ExprValue.deferred(moved);
+                }
+            }
             return new ExprValue(solution.substituteInto(e.value()));
         }
         if (target instanceof ListValue l) {
@@ -69,6 +87,10 @@ public record SolutionValue(Solution solution) implements BindingValue {
                     .append(PlainPrinter.expression(e.getValue(), false));
         }
         return b.toString();
+    }
+
+    private boolean mentionsUnknowns(Expression e) {
+        return e.collectedVariables().stream().anyMatch(solution.unknowns()::contains);
     }
 
     static String conflictText(Solution.Inconsistent bad) {

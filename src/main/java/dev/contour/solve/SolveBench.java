@@ -1,31 +1,51 @@
 package dev.contour.solve;
 
-import dev.contour.Span;
+import dev.contour.eval.BuiltinRegistry;
+import dev.contour.eval.Interpreter;
+import dev.contour.eval.InterpreterOptions;
+import dev.contour.eval.RunResult;
+import java.io.OutputStream;
 import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
 
 /**
- * Benchmark workload "solve": the equal-weight AdS5xS5 ansatz with polynomial residues, for the
- * given weights, as a table of unknowns, equations, build time, solve time and solution kind.
+ * Benchmark workload "solve": the equal-weight AdS5xS5 reduced ansatz solved for polynomial
+ * residues, written as a user writes it (the script below, through the interpreter, with the rule
+ * library's ward(p) and supergravity_poles). One table row per weight: unknowns, equations, the
+ * whole script's time, and of it the time spent building the equations and solving them.
  */
 public final class SolveBench {
+    /** The derivation timed for each weight (P is replaced by the weight). */
+    static final String SCRIPT = """
+            use "ads5s5.ctr"
+            let p = P
+            unknown a[i, j, k] with i + j + k = p - 2
+            let Mred = (sum i, j, k with i + j + k = p - 2 :
+                a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+            let sol = solve supergravity_poles(ward(p)(Mred), p) for a
+            show free_unknowns(sol)
+            """;
+
     private SolveBench() { }
 
     public static void runSolve(PrintStream out, int... weights) {
-        out.printf("%6s %10s %10s %10s %10s  %s%n", "p", "unknowns", "equations", "build s", "solve s", "solution");
+        out.printf("%6s %10s %10s %10s %10s %10s  %s%n", "p", "unknowns", "equations", "script s", "build s", "solve s",
+                "solution");
         for (int p : weights) {
-            SupergravityAnsatz ansatz = new SupergravityAnsatz(p);
-            SolveProgress progress = SolveProgress.to(System.err);
+            PrintStream sink = new PrintStream(OutputStream.nullOutputStream(), true, StandardCharsets.UTF_8);
+            Interpreter interpreter = new Interpreter(InterpreterOptions.to(sink), BuiltinRegistry.standard());
             long t0 = System.nanoTime();
-            SparseSystem system = new LinearConstraintBuilder(ansatz.unknowns())
-                    .add(ansatz.residueConstraint(new Span("bench", 1, 1, 1)))
-                    .build(progress);
+            RunResult r = interpreter.run(SCRIPT.replace("let p = P", "let p = " + p), "solve-bench-p" + p + ".ctr");
             long t1 = System.nanoTime();
-            Solution sol = system.solve(progress);
-            long t2 = System.nanoTime();
-            String kind = sol instanceof Solution.Family f ? "family, " + f.dimension() + " free (" + f.free().get(0) + ")"
-                    : sol.kind();
-            out.printf("%6d %10d %10d %10.2f %10.2f  %s%n", p, ansatz.count(), system.equations(),
-                    (t1 - t0) / 1e9, (t2 - t1) / 1e9, kind);
+            if (!(interpreter.lookup("sol") instanceof SolutionValue sv) || sv.figures() == null || !r.ok()) {
+                throw new IllegalStateException("the solve benchmark script did not run for p = " + p);
+            }
+            SolutionValue.Figures f = sv.figures();
+            String kind = sv.solution() instanceof Solution.Family fam
+                    ? "family, " + fam.dimension() + " free (" + String.join(", ", fam.free()) + ")"
+                    : sv.solution().kind();
+            out.printf("%6d %10d %10d %10.2f %10.2f %10.2f  %s%n", p, f.unknowns(), f.equations(), (t1 - t0) / 1e9,
+                    f.buildSeconds(), f.solveSeconds(), kind);
         }
     }
 

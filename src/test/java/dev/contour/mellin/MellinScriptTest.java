@@ -78,6 +78,29 @@ class MellinScriptTest {
     }
 
     @Test
+    void anOperatorAppliedToAnAnsatzIsTheSameValueCollectedOrNot() {
+        // common practice: E(F(f)) = (E*F)(f); the solver reads ward(p)(Mred) uncollected, and its
+        // solution must be the one found from the collected expression (ward(p)(Mred) + 0 forces that)
+        String script = """
+                use "ads5s5.ctr"
+                let p = 5
+                unknown a[i, j, k] with i + j + k = p - 2
+                let Mred = (sum i, j, k with i + j + k = p - 2 :
+                    a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+                let E = shift(s: -2) + s*shift(t: 2)
+                check E(ward(p)(Mred)) == (E*ward(p))(Mred)
+                let one = solve supergravity_poles(ward(p)(Mred), p) for a
+                let two = solve supergravity_poles(ward(p)(Mred) + 0, p) for a
+                check (Mred with one normalized a[0,0,3] = 1) == (Mred with two normalized a[0,0,3] = 1)
+                check (ward(p)(Mred) with one normalized a[0,0,3] = 1) == ward(p)(Mred with one normalized a[0,0,3] = 1)
+                check stray_poles(ward(p)(Mred with one normalized a[0,0,3] = 1), p) == 0
+                """;
+        RunResult r = run(script, OutputFormat.PLAIN);
+        assertEquals(4, r.checksPassed(), output());
+        assertEquals(0, r.checksFailed(), output());
+    }
+
+    @Test
     void aBrokenAnsatzFailsTheResidueCheckNamingAPolePair() {
         String script = """
                 use "ads5s5.ctr"

@@ -10,15 +10,14 @@ import java.util.Set;
 import java.util.TreeMap;
 
 /**
- * The equal-weight AdS5xS5 reduced-amplitude ansatz as pieces: for each unknown a[i,j,k]
- * (i + j + k = p - 2) the function R-hat(sigma^i tau^j / ((s-2p+2+2k)(t-2p+2+2j)(u~-2p+2+2i)))
- * it multiplies in M = R-hat M~, built directly in factored form.
+ * The equal-weight AdS5xS5 reduced-amplitude ansatz as pieces, built by hand: for each unknown
+ * a[i,j,k] (i + j + k = p - 2) the function R-hat(sigma^i tau^j / ((s-2p+2+2k)(t-2p+2+2j)(u~-2p+2+2i)))
+ * it multiplies in M = R-hat M~, written directly in factored form from the six terms of R
+ * (physics reference section 4).
  *
- * <p>Why here and in factored form: the difference operator R-hat (physics reference section 4)
- * turns each ansatz term into six shifted copies times squared Pochhammer symbols, all products of
- * linear forms in s and t. Keeping them factored lets residue constraints be evaluated term by term
- * for weights in the hundreds (130,816 unknowns at p = 512). The general operator algebra lives in
- * dev.contour.mellin; this class could be replaced by its R-hat once that acts on factored pieces.
+ * <p>Test scope on purpose: it is a second, independent construction of what a script builds with
+ * the rule library's ward(p) (the dictionary of dev.contour.mellin, then the solver's reading of an
+ * uncollected operator application), so the two can be compared equation for equation.
  */
 public final class SupergravityAnsatz implements Constraint.PieceSource {
     /** (m, n, coefficient of U^m V^n in R as {sigma exponent, tau exponent, coefficient} triples). */
