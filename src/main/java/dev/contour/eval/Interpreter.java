@@ -37,6 +37,8 @@ public final class Interpreter {
     private final Map<String, Value> globals = new LinkedHashMap<>();
     /** Declared variables: name to whether it is collected. */
     private final Map<String, Boolean> variables = new HashMap<>();
+    /** The statement that declared each unknown family: running it again (in a loop) declares it afresh. */
+    private final Map<String, Stmt.Unknown> unknownDeclaredBy = new HashMap<>();
     private final SessionLog log = new SessionLog();
     private final Set<Path> used = new HashSet<>();
     private Deque<Map<String, Value>> frames = new ArrayDeque<>();
@@ -171,7 +173,9 @@ public final class Interpreter {
             }
         } else if (s instanceof Stmt.Def d) {
             checkFreeName(d.name(), d.span(), true);
-            globals.put(d.name(), new FunctionValue(d.name(), d.parameters(), d.body(), d.source()));
+            Map<String, Value> captured = new HashMap<>();
+            frames.descendingIterator().forEachRemaining(captured::putAll); // inner frames win
+            globals.put(d.name(), new FunctionValue(d.name(), d.parameters(), d.body(), d.source(), captured));
             if (fileDepth == 0) {
                 log.add(SessionLog.Kind.OTHER, d.name(), d.source());
             }
@@ -275,7 +279,12 @@ public final class Interpreter {
     }
 
     private void declareUnknowns(Stmt.Unknown u) {
-        checkFreeName(u.name(), u.span(), false);
+        // the same statement run again (the next iteration of a loop) declares its family afresh,
+        // so a sweep can size its unknowns by the loop variable
+        if (!(globals.get(u.name()) instanceof UnknownFamilyValue && unknownDeclaredBy.get(u.name()) == u)) {
+            checkFreeName(u.name(), u.span(), false);
+        }
+        unknownDeclaredBy.put(u.name(), u);
         List<long[]> tuples = enumerate(u.indices());
         List<List<Integer>> members = new ArrayList<>();
         for (long[] t : tuples) {
@@ -532,6 +541,9 @@ public final class Interpreter {
         }
         Deque<Map<String, Value>> saved = frames;
         frames = new ArrayDeque<>();
+        if (!f.captured().isEmpty()) {
+            frames.push(f.captured());
+        }
         frames.push(frame);
         try {
             return eval(f.body());

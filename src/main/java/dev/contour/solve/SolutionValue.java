@@ -94,8 +94,11 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
     }
 
     static String conflictText(Solution.Inconsistent bad) {
-        List<String> lines = bad.conflicting().stream().map(s -> s.isKnown() ? String.valueOf(s.line()) : "?").toList();
+        // line numbers, or line:column where two conflicting conditions share a line
+        boolean shared = bad.conflicting().stream().map(Span::line).distinct().count() < bad.conflicting().size();
+        List<String> lines = bad.conflicting().stream()
+                .map(s -> !s.isKnown() ? "?" : shared ? s.line() + ":" + s.column() : String.valueOf(s.line())).toList();
         return (lines.size() == 1 ? "the condition at line " + lines.get(0) + " is contradictory"
-                : "the conditions at lines " + String.join(", ", lines) + " already conflict");
+                : "the conditions at " + (shared ? "" : "lines ") + String.join(", ", lines) + " already conflict");
     }
 }

@@ -162,6 +162,32 @@ class InterpreterTest {
     }
 
     @Test
+    void aLoopBodyMayDeclareItsOwnUnknownsAndFunctionsOfTheLoopVariable() {
+        String out = Scripts.output("""
+                for n in 1..3 {
+                    unknown c[i] with i <= n
+                    def total(x) = x * (sum i with i <= n : c[i])
+                    show c
+                    show total(2)
+                }
+                """);
+        assertEquals("""
+                [n = 1] c = 2 unknowns: c[0], c[1]
+                [n = 1] total(2) = 2*c[1] + 2*c[0]
+                [n = 2] c = 3 unknowns: c[0], c[1], c[2]
+                [n = 2] total(2) = 2*c[2] + 2*c[1] + 2*c[0]
+                [n = 3] c = 4 unknowns: c[0], c[1], c[2], c[3]
+                [n = 3] total(2) = 2*c[3] + 2*c[2] + 2*c[1] + 2*c[0]
+                """, out);
+        // a second 'unknown' statement for the same name is still a mistake
+        assertTrue(error("unknown c[i] with i <= 1\nunknown c[i] with i <= 1").getMessage()
+                .contains("already an unknown family"));
+        // a loop's function sees the iteration's value of the loop variable, parameters shadow it
+        assertEquals("f(1) = 11\n", Scripts.output("for n in 10..10 {\n def f(x) = x + n\n}\nshow f(1)"));
+        assertEquals("[n = 10] f(1) = 2\n", Scripts.output("for n in 10..10 {\n def f(n) = n + 1\n show f(1)\n}"));
+    }
+
+    @Test
     void unknownNamesSuggestTheNearestOne() {
         ContourException e = error("vars sigma, tau collected\nshow sigam + tau");
         assertEquals("unknown name 'sigam'; did you mean 'sigma'?", e.getMessage());
