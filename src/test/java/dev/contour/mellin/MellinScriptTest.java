@@ -22,6 +22,17 @@ class MellinScriptTest {
         return new Interpreter(InterpreterOptions.to(out).withFormat(format)).run(script, "test.ctr");
     }
 
+    /** The equal-weight reduced ansatz Mred with unknowns a[i,j,k] at weight p (physics-reference section 4). */
+    private static String ansatz(int p) {
+        return """
+                use "ads5s5.ctr"
+                let p = P
+                unknown a[i, j, k] with i + j + k = p - 2
+                let Mred = (sum i, j, k with i + j + k = p - 2 :
+                    a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+                """.replace("let p = P", "let p = " + p);
+    }
+
     private String output() {
         return bytes.toString(StandardCharsets.UTF_8);
     }
@@ -55,12 +66,7 @@ class MellinScriptTest {
     void theP4AnsatzIsSolvedThroughTheLanguage() {
         // arXiv:1608.06624 and arXiv:1710.05923: polynomial residues fix the reduced ansatz up to one constant,
         // and the solution is crossing symmetric with linear growth (physics-reference section 4).
-        String script = """
-                use "ads5s5.ctr"
-                let p = 4
-                unknown a[i, j, k] with i + j + k = p - 2
-                let Mred = (sum i, j, k with i + j + k = p - 2 :
-                    a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+        String script = ansatz(4) + """
                 let sol = solve supergravity_poles(ward(p)(Mred), p) for a
                 let Mred1 = Mred with sol normalized a[0, 0, 2] = 1
                 let M = ward(p)(Mred1)
@@ -81,12 +87,7 @@ class MellinScriptTest {
     void anOperatorAppliedToAnAnsatzIsTheSameValueCollectedOrNot() {
         // common practice: E(F(f)) = (E*F)(f); the solver reads ward(p)(Mred) uncollected, and its
         // solution must be the one found from the collected expression (ward(p)(Mred) + 0 forces that)
-        String script = """
-                use "ads5s5.ctr"
-                let p = 5
-                unknown a[i, j, k] with i + j + k = p - 2
-                let Mred = (sum i, j, k with i + j + k = p - 2 :
-                    a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+        String script = ansatz(5) + """
                 let E = shift(s: -2) + s*shift(t: 2)
                 check E(ward(p)(Mred)) == (E*ward(p))(Mred)
                 let one = solve supergravity_poles(ward(p)(Mred), p) for a
