@@ -34,7 +34,11 @@ public final class Monomial implements Comparable<Monomial> {
             d = Math.addExact(d, e);
         }
         this.degree = d;
-        this.hash = Arrays.hashCode(vars) * 31 + Arrays.hashCode(exps);
+        int h = Arrays.hashCode(vars);
+        for (int e : exps) {
+            h = Hashing.combine(h, e);
+        }
+        this.hash = h;
     }
 
     public static Monomial of(String variable, int exponent) {

@@ -1,6 +1,7 @@
 package dev.contour.solve;
 
 import dev.contour.ContourException;
+import dev.contour.algebra.Hashing;
 import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import java.util.Arrays;
@@ -268,7 +269,10 @@ final class LinearForm {
     public int hashCode() {
         int h = hash;
         if (h == 0) {
-            h = constant.hashCode() * 31 + Arrays.hashCode(coef);
+            h = Hashing.mix(constant.hashCode());
+            for (Rational a : coef) {
+                h = Hashing.combine(h, a.hashCode());
+            }
             hash = h == 0 ? 1 : h;
         }
         return h;

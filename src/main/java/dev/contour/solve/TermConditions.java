@@ -1,5 +1,6 @@
 package dev.contour.solve;
 
+import dev.contour.algebra.Hashing;
 import dev.contour.algebra.Rational;
 import java.util.Arrays;
 import java.util.List;
@@ -36,7 +37,8 @@ final class TermConditions {
             this.kind = kind;
             this.where = where;
             this.order = order;
-            this.hash = ((parent.hashCode() * 31 + kind.hashCode()) * 31 + (where == null ? 0 : where.hashCode())) * 31 + order;
+            this.hash = Hashing.combine(Hashing.combine(Hashing.combine(parent.hashCode(), kind.hashCode()),
+                    where == null ? 0 : where.hashCode()), order);
         }
 
         @Override
