@@ -1,5 +1,6 @@
 package dev.contour.solve;
 
+import dev.contour.algebra.Hashing;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.Arrays;
@@ -28,12 +29,17 @@ final class IntegerRow {
         this.big = big;
         this.rhs = rhs;
         this.tag = tag;
-        int h = Arrays.hashCode(cols) * 31 + rhs.hashCode();
+        int h = Hashing.mix(rhs.hashCode());
+        for (int c : cols) {
+            h = Hashing.combine(h, c);
+        }
         if (small != null) {
-            h = h * 31 + Arrays.hashCode(small);
+            for (long v : small) {
+                h = Hashing.combine(h, Long.hashCode(v));
+            }
         } else {
             for (BigInteger b : big) {
-                h = h * 31 + b.hashCode();
+                h = Hashing.combine(h, b.hashCode());
             }
         }
         this.hash = h;
