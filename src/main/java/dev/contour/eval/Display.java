@@ -191,7 +191,7 @@ final class Display {
                     : String.join(", ", names.subList(0, 12)) + ", ...";
             return names.size() + (names.size() == 1 ? " unknown: " : " unknowns: ") + listed;
         }
-        return v.render(OutputFormat.PLAIN);
+        return v.render(OutputFormat.PLAIN, factored);
     }
 
     private static String latex(Value v, boolean factored) {
@@ -201,7 +201,7 @@ final class Display {
         if (v instanceof TermValue t) {
             return LatexPrinter.term(t.value(), factored);
         }
-        return isCore(v) ? "\\text{" + plain(v, factored).replace("\\", "") + "}" : v.render(OutputFormat.LATEX);
+        return isCore(v) ? "\\text{" + plain(v, factored).replace("\\", "") + "}" : v.render(OutputFormat.LATEX, factored);
     }
 
     private static String json(Value v) {

@@ -14,4 +14,9 @@ public interface Value {
     default String render(OutputFormat format) {
         return "<" + kind() + ">";
     }
+
+    /** As {@link #render(OutputFormat)}, with coefficients factored when asked ({@code show ... factored}). */
+    default String render(OutputFormat format, boolean factored) {
+        return render(format);
+    }
 }

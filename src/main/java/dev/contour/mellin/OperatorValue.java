@@ -104,9 +104,14 @@ public record OperatorValue(ShiftOperator operator) implements OperandValue, Cal
 
     @Override
     public String render(OutputFormat format) {
+        return render(format, false);
+    }
+
+    @Override
+    public String render(OutputFormat format, boolean factored) {
         return switch (format) {
-            case PLAIN -> OperatorPrinter.plain(operator, false);
-            case LATEX -> OperatorPrinter.latex(operator, false);
+            case PLAIN -> OperatorPrinter.plain(operator, factored);
+            case LATEX -> OperatorPrinter.latex(operator, factored);
             case JSON -> OperatorPrinter.json(operator);
         };
     }
