@@ -30,7 +30,7 @@ public final class Values {
     }
 
     /** "the expression s + t", "a function", ... for messages. */
-    static String describe(Value v) {
+    public static String describe(Value v) {
         if (v instanceof ExprValue) {
             return "a symbolic expression";
         }

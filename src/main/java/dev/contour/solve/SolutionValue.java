@@ -51,7 +51,13 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
         if (target instanceof ListValue l) {
             return new ListValue(l.items().stream().map(v -> applyTo(v, span)).toList());
         }
-        throw new ContourException("a solution applies to expressions and lists, not to a " + target.kind(), span);
+        if (target instanceof dev.contour.eval.UnknownFamilyValue family) {
+            // every member's value, in the family's order
+            return new ListValue(family.memberNames().stream()
+                    .map(m -> (Value) new ExprValue(solution.substituteInto(Expression.collectedVariable(m)))).toList());
+        }
+        throw new ContourException("a solution applies to expressions, lists and unknown families, not to "
+                + Values.describe(target), span);
     }
 
     @Override

@@ -79,6 +79,19 @@ class SolveLanguageTest {
     }
 
     @Test
+    void aWholeFamilyTakesTheSolution() {
+        // planted: c[0] + c[1] = 2 and c[1] = c[2] leave c[0] free
+        String out = run("""
+                unknown c[i] with i <= 2
+                let sol = solve c[0] + c[1] == 2, c[1] - c[2] == 0 for c
+                show c with sol
+                show c with sol normalized c[0] = 5
+                """);
+        assertEquals("c with sol = {c[0], 2 - c[0], 2 - c[0]}\n"
+                + "c with sol normalized c[0] = 5 = {5, -3, -3}\n", out);
+    }
+
+    @Test
     void applyingAnInconsistentSolutionIsAUserError() {
         ContourException e = assertThrows(ContourException.class, () -> run("""
                 unknown c[i] with i <= 0
