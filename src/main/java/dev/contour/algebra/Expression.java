@@ -33,6 +33,8 @@ public final class Expression {
 
     /** Non-zero canonical coefficients whose variables are disjoint from the collected names. */
     private final TreeMap<Monomial, RationalFunction> terms;
+    /** The collected names once asked for (unmodifiable, so safely published through the wrapper's final field). */
+    private SortedSet<String> collected;
 
     private Expression(TreeMap<Monomial, RationalFunction> terms) {
         this.terms = terms;
@@ -79,6 +81,15 @@ public final class Expression {
 
     /** Makes the coefficients free of collected names by expanding them (the one conflict rule). */
     private static Expression normalised(TreeMap<Monomial, RationalFunction> m) {
+        // Usually no coefficient mentions a collected name: test that against the (few) inner names first.
+        Set<String> inner = new java.util.HashSet<>();
+        for (RationalFunction c : m.values()) {
+            c.addVariablesTo(inner);
+        }
+        Expression e = new Expression(m);
+        if (inner.isEmpty() || !e.mentionsCollected(inner)) {
+            return e;
+        }
         TreeSet<String> collected = new TreeSet<>();
         for (Monomial k : m.keySet()) {
             Collections.addAll(collected, k.names());
@@ -88,7 +99,12 @@ public final class Expression {
 
     /** This value with every occurrence of the given names inside coefficients moved into monomials. */
     private Expression expandedFor(Set<String> names) {
-        if (names.isEmpty()) {
+        if (names.isEmpty() || names == collected) {
+            return this;
+        }
+        // Coefficients are free of the own collected names (the invariant), so only other names can conflict.
+        SortedSet<String> own = collectedVariables();
+        if (own.size() >= names.size() && own.containsAll(names)) {
             return this;
         }
         boolean conflict = false;
@@ -127,6 +143,20 @@ public final class Expression {
         return new Expression(out);
     }
 
+    /** Whether the coefficient c has a variable that the monomial m collects. */
+    private static boolean mentions(RationalFunction c, Monomial m) {
+        if (c.isConstant() || m.isOne()) {
+            return false;
+        }
+        Set<String> vars = c.variables();
+        for (String v : m.names()) {
+            if (vars.contains(v)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     private static boolean intersects(Set<String> a, Set<String> b) {
         for (String s : a) {
             if (b.contains(s)) {
@@ -154,9 +184,29 @@ public final class Expression {
     }
 
     private Set<String> collectedUnion(Expression o) {
-        TreeSet<String> s = new TreeSet<>(collectedVariables());
-        s.addAll(o.collectedVariables());
+        SortedSet<String> a = collectedVariables();
+        SortedSet<String> b = o.collectedVariables();
+        if (b.isEmpty() || a.size() >= b.size() && a.containsAll(b)) {
+            return a;
+        }
+        if (a.isEmpty() || b.containsAll(a)) {
+            return b;
+        }
+        TreeSet<String> s = new TreeSet<>(a);
+        s.addAll(b);
         return s;
+    }
+
+    /** The coefficient of a value free of collected variables (ZERO for zero). */
+    private RationalFunction rational() {
+        return terms.isEmpty() ? RationalFunction.ZERO : terms.firstEntry().getValue();
+    }
+
+    /** This value with every coefficient multiplied by a non-zero c (collected structure unchanged). */
+    private Expression scaled(RationalFunction c, boolean inverse) {
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>(terms);
+        out.replaceAll((m, x) -> inverse ? x.divide(c) : x.multiply(c));
+        return new Expression(out);
     }
 
     // ---------------------------------------------------------------- arithmetic
@@ -167,6 +217,9 @@ public final class Expression {
         }
         if (isZero()) {
             return o;
+        }
+        if (isRational() && o.isRational()) {
+            return of(rational().add(o.rational()));
         }
         Set<String> names = collectedUnion(o);
         Expression a = expandedFor(names);
@@ -179,6 +232,9 @@ public final class Expression {
     }
 
     public Expression subtract(Expression o) {
+        if (isRational() && o.isRational() && !o.isZero()) {
+            return of(rational().subtract(o.rational()));
+        }
         return add(o.negate());
     }
 
@@ -186,9 +242,29 @@ public final class Expression {
         if (isZero() || o.isZero()) {
             return ZERO;
         }
+        if (isRational() && o.isRational()) {
+            return of(rational().multiply(o.rational()));
+        }
+        if (terms.size() == 1 && o.terms.size() == 1) {
+            // One term times one term (a[i,j,k] * sigma^i): without a name conflict, no sets of names are needed.
+            Map.Entry<Monomial, RationalFunction> x = terms.firstEntry();
+            Map.Entry<Monomial, RationalFunction> y = o.terms.firstEntry();
+            if (!mentions(x.getValue(), y.getKey()) && !mentions(y.getValue(), x.getKey())) {
+                TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
+                out.put(x.getKey().multiply(y.getKey()), x.getValue().multiply(y.getValue()));
+                return new Expression(out);
+            }
+        }
         Set<String> names = collectedUnion(o);
         Expression a = expandedFor(names);
         Expression b = o.expandedFor(names);
+        // A factor free of collected variables scales each coefficient: no products of monomials, no merging.
+        if (b.isRational()) {
+            return a.scaled(b.rational(), false);
+        }
+        if (a.isRational()) {
+            return b.scaled(a.rational(), false);
+        }
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         for (Map.Entry<Monomial, RationalFunction> x : a.terms.entrySet()) {
             for (Map.Entry<Monomial, RationalFunction> y : b.terms.entrySet()) {
@@ -215,8 +291,16 @@ public final class Expression {
         if (o.isZero()) {
             throw new ContourException("division by zero: (" + this + ") / 0");
         }
+        if (isRational() && o.isRational()) {
+            return isZero() ? ZERO : of(rational().divide(o.rational()));
+        }
         Set<String> names = collectedUnion(o);
-        return expandedFor(names).multiply(o.expandedFor(names).inverseOfSingleTerm());
+        Expression a = expandedFor(names);
+        Expression b = o.expandedFor(names);
+        if (b.isRational() && !a.isZero()) {
+            return a.scaled(b.rational(), true);
+        }
+        return a.multiply(b.inverseOfSingleTerm());
     }
 
     private Expression inverseOfSingleTerm() {
@@ -308,19 +392,31 @@ public final class Expression {
 
     /** Linear substitution of inner variables (shifts, swaps, t -> 4p - s - t): the fast path. */
     public Expression substituteLinear(Map<String, Polynomial> values) {
-        Set<String> collected = collectedVariables();
-        if (intersects(values.keySet(), collected)) {
+        if (mentionsCollected(values.keySet())) {
             Map<String, Expression> general = new HashMap<>();
             for (Map.Entry<String, Polynomial> e : values.entrySet()) {
                 general.put(e.getKey(), of(RationalFunction.of(e.getValue())));
             }
             return substitute(general);
         }
-        TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
-        for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
-            accumulate(out, t.getKey(), t.getValue().substituteLinear(values));
-        }
+        // Monomials are unchanged, so the result keeps this order: copy the map, replace the coefficients.
+        Map<Polynomial, Polynomial> images = new HashMap<>();
+        TreeMap<Monomial, RationalFunction> out = new TreeMap<>(terms);
+        out.replaceAll((m, c) -> c.substituteLinear(values, images));
+        out.values().removeIf(RationalFunction::isZero);
         return normalised(out);
+    }
+
+    /** Whether a monomial of this value has one of the names (without building the set of all names). */
+    private boolean mentionsCollected(Set<String> names) {
+        for (Monomial m : terms.keySet()) {
+            for (String v : m.names()) {
+                if (names.contains(v)) {
+                    return true;
+                }
+            }
+        }
+        return false;
     }
 
     /**
@@ -357,11 +453,16 @@ public final class Expression {
     }
 
     public SortedSet<String> collectedVariables() {
-        TreeSet<String> s = new TreeSet<>();
-        for (Monomial m : terms.keySet()) {
-            Collections.addAll(s, m.names());
+        SortedSet<String> c = collected;
+        if (c == null) {
+            TreeSet<String> s = new TreeSet<>();
+            for (Monomial m : terms.keySet()) {
+                Collections.addAll(s, m.names());
+            }
+            c = Collections.unmodifiableSortedSet(s);
+            collected = c;
         }
-        return Collections.unmodifiableSortedSet(s);
+        return c;
     }
 
     public SortedSet<String> innerVariables() {

@@ -74,16 +74,35 @@ public final class Monomial implements Comparable<Monomial> {
         if (isOne()) {
             return o;
         }
-        TreeMap<String, Integer> m = new TreeMap<>(exponents());
-        for (int i = 0; i < o.vars.length; i++) {
-            int e = Math.addExact(m.getOrDefault(o.vars[i], 0), o.exps[i]);
-            if (e == 0) {
-                m.remove(o.vars[i]);
+        // Merge of the two sorted name lists; exponents summing to zero drop out.
+        String[] v = new String[vars.length + o.vars.length];
+        int[] x = new int[v.length];
+        int i = 0;
+        int j = 0;
+        int n = 0;
+        while (i < vars.length || j < o.vars.length) {
+            int c = i == vars.length ? 1 : j == o.vars.length ? -1 : vars[i].compareTo(o.vars[j]);
+            int e;
+            String name;
+            if (c < 0) {
+                name = vars[i];
+                e = exps[i++];
+            } else if (c > 0) {
+                name = o.vars[j];
+                e = o.exps[j++];
             } else {
-                m.put(o.vars[i], e);
+                name = vars[i];
+                e = Math.addExact(exps[i++], o.exps[j++]);
+            }
+            if (e != 0) {
+                v[n] = name;
+                x[n++] = e;
             }
         }
-        return fromSorted(m);
+        if (n == 0) {
+            return ONE;
+        }
+        return new Monomial(n == v.length ? v : Arrays.copyOf(v, n), n == x.length ? x : Arrays.copyOf(x, n));
     }
 
     public Monomial pow(int e) {

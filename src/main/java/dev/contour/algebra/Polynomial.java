@@ -100,6 +100,45 @@ public final class Polynomial implements Comparable<Polynomial> {
         return 0;
     }
 
+    /**
+     * {@link #compareExponents(int[], int[])} of two exponent vectors over different sorted variable
+     * lists, as if both were re-expressed over their union (without building it).
+     */
+    static int compareExponents(String[] va, int[] a, String[] vb, int[] b) {
+        int da = 0;
+        int db = 0;
+        for (int x : a) {
+            da += x;
+        }
+        for (int x : b) {
+            db += x;
+        }
+        if (da != db) {
+            return Integer.compare(da, db);
+        }
+        int i = 0;
+        int j = 0;
+        while (i < va.length || j < vb.length) {
+            int c = i == va.length ? 1 : j == vb.length ? -1 : va[i].compareTo(vb[j]);
+            int x;
+            int y;
+            if (c < 0) {
+                x = a[i++];
+                y = 0;
+            } else if (c > 0) {
+                x = 0;
+                y = b[j++];
+            } else {
+                x = a[i++];
+                y = b[j++];
+            }
+            if (x != y) {
+                return Integer.compare(x, y);
+            }
+        }
+        return 0;
+    }
+
     /** Hashable wrapper of an exponent vector for accumulation. */
     record Key(int[] e) {
         @Override
@@ -190,9 +229,29 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (Arrays.equals(a, b)) {
             return a;
         }
-        TreeSet<String> s = new TreeSet<>(Arrays.asList(a));
-        s.addAll(Arrays.asList(b));
-        return s.toArray(NO_VARS);
+        // Linear merge of the two sorted arrays (this runs inside every add and compare).
+        String[] out = new String[a.length + b.length];
+        int i = 0;
+        int j = 0;
+        int n = 0;
+        while (i < a.length || j < b.length) {
+            int c = i == a.length ? 1 : j == b.length ? -1 : a[i].compareTo(b[j]);
+            if (c < 0) {
+                out[n++] = a[i++];
+            } else if (c > 0) {
+                out[n++] = b[j++];
+            } else {
+                out[n++] = a[i++];
+                j++;
+            }
+        }
+        if (n == a.length) {
+            return a;
+        }
+        if (n == b.length) {
+            return b;
+        }
+        return Arrays.copyOf(out, n);
     }
 
     /** The exponent vectors of this polynomial re-expressed over the (super)set {@code target}. */
@@ -1006,11 +1065,11 @@ public final class Polynomial implements Comparable<Polynomial> {
     /** A total order consistent with equals: term by term in the monomial order, then coefficients. */
     @Override
     public int compareTo(Polynomial o) {
-        String[] u = unionVars(vars, o.vars);
-        int[][] a = expsOver(u);
-        int[][] b = o.expsOver(u);
+        boolean same = vars == o.vars || Arrays.equals(vars, o.vars);
+        int[][] a = exps;
+        int[][] b = o.exps;
         for (int i = 0; i < Math.min(a.length, b.length); i++) {
-            int c = compareExponents(a[i], b[i]);
+            int c = same ? compareExponents(a[i], b[i]) : compareExponents(vars, a[i], o.vars, b[i]);
             if (c != 0) {
                 return c;
             }

@@ -253,6 +253,11 @@ public final class Rational implements Comparable<Rational> {
         return bnum == null ? den == 1 : bden.equals(BigInteger.ONE);
     }
 
+    /** Whether this is an integer in the range of int (then {@link #intValueExact()} cannot throw). */
+    public boolean fitsInt() {
+        return bnum == null && den == 1 && num >= Integer.MIN_VALUE && num <= Integer.MAX_VALUE;
+    }
+
     public BigInteger numerator() {
         return bnum == null ? BigInteger.valueOf(num) : bnum;
     }

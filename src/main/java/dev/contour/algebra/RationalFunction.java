@@ -43,6 +43,8 @@ public final class RationalFunction {
     private int hash;
     /** The expanded denominator once computed (benign race: any thread computes the same value). */
     private Polynomial expanded;
+    /** The variables once asked for (unmodifiable, so safely published through the wrapper's final field). */
+    private SortedSet<String> variables;
 
     private RationalFunction(Polynomial num, Polynomial[] lin, int[] mult, Polynomial cof) {
         this.num = num;
@@ -384,7 +386,50 @@ public final class RationalFunction {
         if (o.isZero()) {
             throw new ContourException("division by zero: (" + this + ") / 0");
         }
+        if (o.isPolynomial() && o.num.isLinear()) {
+            return divideByLinear(o.num);
+        }
         return multiply(o.inverse());
+    }
+
+    /**
+     * This divided by a polynomial of total degree one: the factor goes straight into the factored
+     * denominator (ansatz terms divide by one linear form after another), with no product expanded
+     * and nothing re-split. Same canonical value as {@code multiply(of(l).inverse())}.
+     */
+    private RationalFunction divideByLinear(Polynomial l) {
+        if (isZero()) {
+            return ZERO;
+        }
+        Rational c = l.content();
+        Polynomial base = c.isOne() ? l : l.multiply(c.inverse());
+        Rational scale = c.inverse();
+        int at = Arrays.binarySearch(lin, base);
+        if (at < 0 && !num.isConstant()) {
+            // The numerator is coprime to the denominator, so only a new factor can cancel, and once.
+            Polynomial q = num.divideOrNull(base);
+            if (q != null) {
+                return new RationalFunction(q.multiply(scale), lin, mult, cof);
+            }
+        }
+        Polynomial[] l2;
+        int[] m2;
+        if (at >= 0) {
+            l2 = lin;
+            m2 = mult.clone();
+            m2[at] = Math.addExact(m2[at], 1);
+        } else {
+            int ins = -at - 1;
+            l2 = new Polynomial[lin.length + 1];
+            m2 = new int[lin.length + 1];
+            System.arraycopy(lin, 0, l2, 0, ins);
+            System.arraycopy(mult, 0, m2, 0, ins);
+            l2[ins] = base;
+            m2[ins] = 1;
+            System.arraycopy(lin, ins, l2, ins + 1, lin.length - ins);
+            System.arraycopy(mult, ins, m2, ins + 1, lin.length - ins);
+        }
+        return new RationalFunction(num.multiply(scale), l2, m2, cof);
     }
 
     public RationalFunction negate() {
@@ -495,6 +540,18 @@ public final class RationalFunction {
      * the factors is needed.
      */
     public RationalFunction substituteLinear(Map<String, Polynomial> values) {
+        return substituteLinear(values, null);
+    }
+
+    /**
+     * {@link #substituteLinear(Map)} with a memo of linear denominator factors to their images under
+     * these values (null for none), shared by the coefficients of one expression: an ansatz's many
+     * terms repeat few factors.
+     */
+    RationalFunction substituteLinear(Map<String, Polynomial> values, Map<Polynomial, Polynomial> images) {
+        if (cof.isOne() && !isZero()) {
+            return substituteLinearFactored(values, images);
+        }
         Map<String, Polynomial> used = new HashMap<>();
         for (String v : variables()) {
             Polynomial p = values.get(v);
@@ -533,6 +590,132 @@ public final class RationalFunction {
         }
         b.cancel();
         return b.build();
+    }
+
+    /**
+     * Linear substitution when the denominator is a product of linear factors: each factor's image
+     * is linear or constant, so the new denominator is the images normalised and merged (equal
+     * images add their exponents); the only possible cancellation is of the new numerator against
+     * those factors, found by trial division. No rank test and no factor splitting.
+     */
+    private RationalFunction substituteLinearFactored(Map<String, Polynomial> values, Map<Polynomial, Polynomial> images) {
+        boolean any = usesLinear(num, values);
+        for (Polynomial l : lin) {
+            any |= usesLinear(l, values);
+        }
+        if (!any) {
+            return this;
+        }
+        Polynomial n = num.substitute(values);
+        if (n.isZero()) {
+            // Denominator factors are still checked: a vanishing one is an error even over a zero numerator.
+            for (Polynomial l : lin) {
+                imageOf(l, values, images);
+            }
+            return ZERO;
+        }
+        Rational scale = Rational.ONE;
+        Polynomial[] bases = new Polynomial[lin.length];
+        int[] exps = new int[lin.length];
+        int k = 0;
+        for (int i = 0; i < lin.length; i++) {
+            Polynomial img = imageOf(lin[i], values, images);
+            Rational c = img.content();
+            scale = scale.multiply(c.pow(-mult[i]));
+            if (!img.isConstant()) {
+                bases[k] = c.isOne() ? img : img.multiply(c.inverse());
+                exps[k++] = mult[i];
+            }
+        }
+        n = n.multiply(scale);
+        // Sort the images (insertion sort: k is a handful of factors) and merge equal ones.
+        Polynomial[] l2 = new Polynomial[k];
+        int[] m2 = new int[k];
+        int r = 0;
+        for (int i = 0; i < k; i++) {
+            Polynomial b = bases[i];
+            int e = exps[i];
+            int at = r;
+            int c = 1;
+            while (at > 0 && (c = l2[at - 1].compareTo(b)) > 0) {
+                at--;
+            }
+            if (at > 0 && c == 0) {
+                m2[at - 1] = Math.addExact(m2[at - 1], e);
+                continue;
+            }
+            System.arraycopy(l2, at, l2, at + 1, r - at);
+            System.arraycopy(m2, at, m2, at + 1, r - at);
+            l2[at] = b;
+            m2[at] = e;
+            r++;
+        }
+        // Cancellation: the new numerator against each factor, by trial division.
+        if (!n.isConstant()) {
+            for (int i = 0; i < r; i++) {
+                Polynomial q;
+                while (m2[i] > 0 && !n.isConstant() && (q = n.divideOrNull(l2[i])) != null) {
+                    n = q;
+                    m2[i]--;
+                }
+            }
+        }
+        int live = 0;
+        for (int i = 0; i < r; i++) {
+            if (m2[i] > 0) {
+                l2[live] = l2[i];
+                m2[live++] = m2[i];
+            }
+        }
+        if (live == 0) {
+            return of(n);
+        }
+        return new RationalFunction(n, live == l2.length ? l2 : Arrays.copyOf(l2, live),
+                live == m2.length ? m2 : Arrays.copyOf(m2, live), Polynomial.ONE);
+    }
+
+    /** Whether p has a variable given a value; a value of degree above one throws. */
+    private static boolean usesLinear(Polynomial p, Map<String, Polynomial> values) {
+        boolean any = false;
+        for (String v : p.vars) {
+            Polynomial val = values.get(v);
+            if (val != null) {
+                if (val.totalDegree() > 1) {
+                    throw new ContourException("substituteLinear needs values of degree at most 1, got " + v + " = " + val);
+                }
+                any = true;
+            }
+        }
+        return any;
+    }
+
+    /** Adds the variables to out without building the sorted set of {@link #variables()}. */
+    void addVariablesTo(java.util.Collection<String> out) {
+        SortedSet<String> v = variables;
+        if (v != null) {
+            out.addAll(v);
+            return;
+        }
+        Collections.addAll(out, num.vars);
+        for (Polynomial l : lin) {
+            Collections.addAll(out, l.vars);
+        }
+        Collections.addAll(out, cof.vars);
+    }
+
+    /** The image of a denominator factor (memoised when a memo is given); zero throws. */
+    private static Polynomial imageOf(Polynomial l, Map<String, Polynomial> values, Map<Polynomial, Polynomial> images) {
+        Polynomial img = images == null ? null : images.get(l);
+        if (img == null) {
+            img = l.substitute(values);
+            if (img.isZero()) {
+                throw new ContourException("division by zero: the denominator factor (" + l + ") vanishes after substitution");
+            }
+            if (images != null) {
+                images.put(l, img);
+            }
+        }
+        return img;
     }
 
     /** Whether the affine map of the variables of this function has a linear part of full rank. */
@@ -693,12 +876,17 @@ public final class RationalFunction {
     }
 
     public SortedSet<String> variables() {
-        TreeSet<String> s = new TreeSet<>(Arrays.asList(num.vars));
-        for (Polynomial l : lin) {
-            s.addAll(Arrays.asList(l.vars));
+        SortedSet<String> v = variables;
+        if (v == null) {
+            TreeSet<String> s = new TreeSet<>(Arrays.asList(num.vars));
+            for (Polynomial l : lin) {
+                s.addAll(Arrays.asList(l.vars));
+            }
+            s.addAll(Arrays.asList(cof.vars));
+            v = Collections.unmodifiableSortedSet(s);
+            variables = v;
         }
-        s.addAll(Arrays.asList(cof.vars));
-        return Collections.unmodifiableSortedSet(s);
+        return v;
     }
 
     /** Re-checks every canonical-form invariant from scratch (tests call it after each operation). */

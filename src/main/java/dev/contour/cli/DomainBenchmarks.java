@@ -1,5 +1,6 @@
 package dev.contour.cli;
 
+import dev.contour.eval.AnsatzSumBench;
 import dev.contour.mellin.WardBench;
 import dev.contour.numeric.NumericBench;
 import dev.contour.solve.SolveBench;
@@ -14,6 +15,9 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
         r.register(BenchRegistry.Workload.report("solve",
                 "solve the equal-weight AdS5xS5 ansatz for polynomial residues, p = 2..512",
                 out -> SolveBench.runSolve(out, 2, 8, 32, 64, 128, 256, 512)));
+        r.register(BenchRegistry.Workload.report("ansatz-sum",
+                "evaluate the AdS5xS5 reduced ansatz as a script's sum over i + j + k = p - 2 with utilde eliminated, p = 32, 128, 512",
+                out -> AnsatzSumBench.run(out, 32, 128, 512)));
         r.register(BenchRegistry.Workload.report("box",
                 "the one-loop box function as a two-variable Mellin-Barnes integral to 15 digits",
                 NumericBench::runBench));

@@ -376,6 +376,10 @@ public final class Interpreter {
 
     private Value evalUnlocated(Expr e) {
         if (e instanceof Expr.Number n) {
+            // Small integer literals (2 in 2*k, evaluated once per term of a sum) share one value.
+            if (n.denominator().equals(java.math.BigInteger.ONE) && n.numerator().bitLength() < 31) {
+                return Values.of(n.numerator().intValue());
+            }
             return new ExprValue(Expression.constant(Rational.of(n.numerator(), n.denominator())));
         }
         if (e instanceof Expr.Name n) {

@@ -8,7 +8,6 @@ import java.util.LinkedHashMap;
 import java.util.Set;
 import java.util.List;
 import java.util.Map;
-import java.util.stream.Collectors;
 
 /**
  * An indexed family of unknowns from {@code unknown a[i, j] with ...}: each member is a collected
@@ -51,7 +50,15 @@ public final class UnknownFamilyValue implements Value {
 
     /** The variable name of one member: {@code a[0,1,0]}. */
     public static String memberName(String family, List<Integer> indices) {
-        return family + indices.stream().map(String::valueOf).collect(Collectors.joining(",", "[", "]"));
+        // A plain builder rather than a stream: sums over an ansatz name one member per term.
+        StringBuilder sb = new StringBuilder(family.length() + 4 * indices.size() + 2).append(family).append('[');
+        for (int i = 0; i < indices.size(); i++) {
+            if (i > 0) {
+                sb.append(',');
+            }
+            sb.append(indices.get(i).intValue());
+        }
+        return sb.append(']').toString();
     }
 
     /** Member names in declaration order. */

@@ -12,6 +12,9 @@ public final class Values {
     /** The value as an int; {@code what} names it in the error. */
     public static int integer(Value v, Span span, String what) {
         Rational r = rational(v, span, what);
+        if (r.fitsInt()) {
+            return r.intValueExact();
+        }
         if (!r.isInteger()) {
             throw new ContourException(what + " must be an integer, not " + r, span);
         }
@@ -57,7 +60,7 @@ public final class Values {
 
     /** The constant expression with value r, shared for small integers. */
     static Expression constant(Rational r) {
-        if (r.isInteger() && r.numerator().bitLength() < 31) {
+        if (r.fitsInt()) {
             return of(r.intValueExact()).value();
         }
         return Expression.constant(r);
