@@ -400,7 +400,7 @@ public final class Expression {
             return substitute(general);
         }
         // Monomials are unchanged, so the result keeps this order: copy the map, replace the coefficients.
-        Map<Polynomial, Polynomial> images = new HashMap<>();
+        Map<Polynomial, RationalFunction.FactorImage> images = new HashMap<>();
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>(terms);
         out.replaceAll((m, c) -> c.substituteLinear(values, images));
         out.values().removeIf(RationalFunction::isZero);

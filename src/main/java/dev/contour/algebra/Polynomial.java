@@ -287,6 +287,9 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (isZero()) {
             return o;
         }
+        if (o.isConstant() != isConstant()) {
+            return isConstant() ? o.plusConstant(coeffs[0]) : plusConstant(o.coeffs[0]);
+        }
         String[] u = unionVars(vars, o.vars);
         int[][] a = expsOver(u);
         int[][] b = o.expsOver(u);
@@ -314,6 +317,29 @@ public final class Polynomial implements Comparable<Polynomial> {
             }
         }
         return fromArrays(u, Arrays.copyOf(ex, n), Arrays.copyOf(co, n), true);
+    }
+
+    /**
+     * This non-constant polynomial plus a non-zero constant (index arithmetic such as s - 2*p + 2 +
+     * 2*k): only the constant term, last in the order, changes.
+     */
+    private Polynomial plusConstant(Rational c) {
+        int n = exps.length;
+        boolean hasConstant = degreeOf(exps[n - 1]) == 0;
+        if (!hasConstant) {
+            int[][] ex = Arrays.copyOf(exps, n + 1);
+            Rational[] co = Arrays.copyOf(coeffs, n + 1);
+            ex[n] = new int[vars.length];
+            co[n] = c;
+            return new Polynomial(vars, ex, co);
+        }
+        Rational s = coeffs[n - 1].add(c);
+        if (s.isZero()) {
+            return new Polynomial(vars, Arrays.copyOf(exps, n - 1), Arrays.copyOf(coeffs, n - 1));
+        }
+        Rational[] co = coeffs.clone();
+        co[n - 1] = s;
+        return new Polynomial(vars, exps, co);
     }
 
     public Polynomial subtract(Polynomial o) {

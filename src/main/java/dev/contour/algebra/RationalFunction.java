@@ -462,7 +462,7 @@ public final class RationalFunction {
         if (exponent == 0) {
             return ONE;
         }
-        if (exponent == 1) {
+        if (exponent == 1 || isOne()) {
             return this;
         }
         int[] m = new int[mult.length];
@@ -548,7 +548,7 @@ public final class RationalFunction {
      * these values (null for none), shared by the coefficients of one expression: an ansatz's many
      * terms repeat few factors.
      */
-    RationalFunction substituteLinear(Map<String, Polynomial> values, Map<Polynomial, Polynomial> images) {
+    RationalFunction substituteLinear(Map<String, Polynomial> values, Map<Polynomial, FactorImage> images) {
         if (cof.isOne() && !isZero()) {
             return substituteLinearFactored(values, images);
         }
@@ -598,7 +598,7 @@ public final class RationalFunction {
      * images add their exponents); the only possible cancellation is of the new numerator against
      * those factors, found by trial division. No rank test and no factor splitting.
      */
-    private RationalFunction substituteLinearFactored(Map<String, Polynomial> values, Map<Polynomial, Polynomial> images) {
+    private RationalFunction substituteLinearFactored(Map<String, Polynomial> values, Map<Polynomial, FactorImage> images) {
         boolean any = usesLinear(num, values);
         for (Polynomial l : lin) {
             any |= usesLinear(l, values);
@@ -619,11 +619,10 @@ public final class RationalFunction {
         int[] exps = new int[lin.length];
         int k = 0;
         for (int i = 0; i < lin.length; i++) {
-            Polynomial img = imageOf(lin[i], values, images);
-            Rational c = img.content();
-            scale = scale.multiply(c.pow(-mult[i]));
-            if (!img.isConstant()) {
-                bases[k] = c.isOne() ? img : img.multiply(c.inverse());
+            FactorImage img = imageOf(lin[i], values, images);
+            scale = scale.multiply(img.content().pow(-mult[i]));
+            if (img.base() != null) {
+                bases[k] = img.base();
                 exps[k++] = mult[i];
             }
         }
@@ -703,14 +702,22 @@ public final class RationalFunction {
         Collections.addAll(out, cof.vars);
     }
 
+    /**
+     * The image of a linear denominator factor as content times a primitive base (null when the image
+     * is constant). Memoised images share their bases between all the coefficients that have them.
+     */
+    record FactorImage(Rational content, Polynomial base) { }
+
     /** The image of a denominator factor (memoised when a memo is given); zero throws. */
-    private static Polynomial imageOf(Polynomial l, Map<String, Polynomial> values, Map<Polynomial, Polynomial> images) {
-        Polynomial img = images == null ? null : images.get(l);
+    private static FactorImage imageOf(Polynomial l, Map<String, Polynomial> values, Map<Polynomial, FactorImage> images) {
+        FactorImage img = images == null ? null : images.get(l);
         if (img == null) {
-            img = l.substitute(values);
-            if (img.isZero()) {
+            Polynomial p = l.substitute(values);
+            if (p.isZero()) {
                 throw new ContourException("division by zero: the denominator factor (" + l + ") vanishes after substitution");
             }
+            Rational c = p.content();
+            img = new FactorImage(c, p.isConstant() ? null : c.isOne() ? p : p.multiply(c.inverse()));
             if (images != null) {
                 images.put(l, img);
             }

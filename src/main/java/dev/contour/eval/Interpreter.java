@@ -4,6 +4,7 @@ import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Rational;
+import dev.contour.algebra.RationalFunction;
 import dev.contour.lang.Expr;
 import dev.contour.lang.IndexSet;
 import dev.contour.lang.ScriptParser;
@@ -459,6 +460,12 @@ public final class Interpreter {
             values.add(eval(f));
         }
         Value result = dividend;
+        if (dividend instanceof ExprValue d) {
+            RationalFunction inverse = inverseOfFactors(values, d.value());
+            if (inverse != null) {
+                return new ExprValue(d.value().multiply(inverse));
+            }
+        }
         if (values.stream().allMatch(v -> v instanceof ExprValue)) {
             for (Value v : values) {
                 result = Arithmetic.binary(Expr.Operator.DIVIDE, result, v, division.span(), options.limits());
@@ -470,6 +477,34 @@ public final class Interpreter {
             divisor = Arithmetic.binary(Expr.Operator.MULTIPLY, divisor, values.get(i), division.right().span(), options.limits());
         }
         return Arithmetic.binary(Expr.Operator.DIVIDE, result, divisor, division.span(), options.limits());
+    }
+
+    /**
+     * 1/(f1 * f2 * ...) as one factored function when every factor is a non-zero value free of
+     * collected variables and of the dividend's collected names (so no expansion rule applies);
+     * else null. The dividend is then scaled once instead of once per factor.
+     */
+    private static RationalFunction inverseOfFactors(List<Value> factors, Expression dividend) {
+        RationalFunction inverse = RationalFunction.ONE;
+        Set<String> collected = null;
+        for (Value v : factors) {
+            if (!(v instanceof ExprValue e) || !e.value().isRational() || e.value().isZero()) {
+                return null;
+            }
+            RationalFunction f = e.value().asRationalFunction();
+            if (!f.isConstant()) {
+                if (collected == null) {
+                    collected = dividend.collectedVariables();
+                }
+                for (String name : f.variables()) {
+                    if (collected.contains(name)) {
+                        return null;
+                    }
+                }
+            }
+            inverse = inverse.divide(f);
+        }
+        return inverse;
     }
 
     private static void flattenProduct(Expr e, List<Expr> out) {

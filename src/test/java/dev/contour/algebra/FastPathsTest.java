@@ -207,6 +207,24 @@ class FastPathsTest {
         assertEquals(List.copyOf(names), List.of(u));
     }
 
+    @Property(tries = 200)
+    void addingAConstantEqualsTheGeneralSum(@ForAll("polys") Polynomial p, @ForAll("rationals") Rational c) {
+        // Reference: both sides times a fresh variable w, so the addition takes the general merge, then w divided out.
+        Polynomial w = Polynomial.variable("w");
+        Polynomial expected = p.multiply(w).add(Polynomial.constant(c).multiply(w)).divideExact(w);
+        for (Polynomial sum : List.of(p.add(Polynomial.constant(c)), Polynomial.constant(c).add(p))) {
+            assertEquals(expected, sum);
+            assertEquals(expected.hashCode(), sum.hashCode());
+            assertEquals(expected.toString(), sum.toString());
+            assertEquals(expected.variables(), sum.variables());
+        }
+    }
+
+    @Provide
+    Arbitrary<Rational> rationals() {
+        return Gen.rationals();
+    }
+
     @Provide
     Arbitrary<Polynomial> polys() {
         return Arbitraries.oneOf(Gen.polynomials(3, 2), Gen.linearForms(),

@@ -1,8 +1,10 @@
 package dev.contour.eval;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.contour.ContourException;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Monomial;
 import dev.contour.algebra.Polynomial;
@@ -28,6 +30,28 @@ class AnsatzSumTest {
             // p(p - 1)/2 members of i + j + k = p - 2, one monomial each.
             assertEquals((p - 1) * p / 2, scripted.terms().size());
         }
+    }
+
+    @Test
+    void dividingByAWrittenProductEqualsDividingByItsExpansion() {
+        // The interpreter divides by the factors of a written product at once; the value must not change.
+        Scripts session = new Scripts();
+        session.run("vars s, t\nvars sigma collected");
+        for (String[] pair : List.of(
+                new String[] {"sigma^2*s/((s - 1)*(2*t + 4)*(s - 1))", "sigma^2*s/((s - 1)^2*(2*t + 4))"},
+                new String[] {"(s^2 - 1)/((s + 1)*(3/2)*(s*t + 1))", "(s^2 - 1)/(3/2*s^2*t + 3/2*s*t + 3/2*s + 3/2)"},
+                new String[] {"(sigma + s)/((t - 1)*(s + t))", "(sigma + s)/(s*t + t^2 - s - t)"},
+                new String[] {"6/(2*3)", "1"})) {
+            Expression written = value(session, pair[0]);
+            assertTrue(written.isCanonical(), pair[0]);
+            assertEquals(value(session, pair[1]), written, pair[0]);
+        }
+        ContourException zero = assertThrows(ContourException.class, () -> session.run("show 1/((s - 1)*0)"));
+        assertEquals("division by zero", zero.getMessage());
+    }
+
+    private static Expression value(Scripts session, String expression) {
+        return ((ExprValue) session.interpreter.evaluate(expression, "test.ctr")).value();
     }
 
     private static Expression plainAnsatz(int p) {
