@@ -70,13 +70,89 @@ public final class Expression {
 
     /** The sum of coefficient * monomial over the map's entries (zero coefficients dropped). */
     public static Expression of(Map<Monomial, RationalFunction> terms) {
-        TreeMap<Monomial, RationalFunction> m = new TreeMap<>();
+        // Sorting an array and building the tree from it in one pass is much cheaper than inserting
+        // term by term (a sum's accumulator hands over its terms in the order they were summed, which
+        // already has long sorted runs).
+        @SuppressWarnings("unchecked")
+        Map.Entry<Monomial, RationalFunction>[] es = new Map.Entry[terms.size()];
+        int n = 0;
         for (Map.Entry<Monomial, RationalFunction> e : terms.entrySet()) {
             if (!e.getValue().isZero()) {
-                m.put(e.getKey(), e.getValue());
+                es[n++] = Map.entry(e.getKey(), e.getValue());
             }
         }
-        return normalised(m);
+        java.util.Arrays.sort(es, 0, n, Map.Entry.comparingByKey());
+        return normalised(new TreeMap<>(new SortedEntries(es, n)));
+    }
+
+    /**
+     * Distinct entries sorted by key, seen as a sorted map only so that {@link TreeMap}'s copy
+     * constructor builds its tree from them in linear time; nothing else is supported.
+     */
+    private static final class SortedEntries extends java.util.AbstractMap<Monomial, RationalFunction>
+            implements SortedMap<Monomial, RationalFunction> {
+        private final Map.Entry<Monomial, RationalFunction>[] entries;
+        private final int size;
+
+        SortedEntries(Map.Entry<Monomial, RationalFunction>[] entries, int size) {
+            for (int i = 1; i < size; i++) {
+                if (entries[i - 1].getKey().compareTo(entries[i].getKey()) >= 0) {
+                    throw new IllegalArgumentException("entries must be distinct and sorted");
+                }
+            }
+            this.entries = entries;
+            this.size = size;
+        }
+
+        @Override
+        public java.util.Comparator<? super Monomial> comparator() {
+            return null;
+        }
+
+        @Override
+        public int size() {
+            return size;
+        }
+
+        @Override
+        public Set<Map.Entry<Monomial, RationalFunction>> entrySet() {
+            return new java.util.AbstractSet<>() {
+                @Override
+                public java.util.Iterator<Map.Entry<Monomial, RationalFunction>> iterator() {
+                    return java.util.Arrays.asList(entries).subList(0, size).iterator();
+                }
+
+                @Override
+                public int size() {
+                    return size;
+                }
+            };
+        }
+
+        @Override
+        public SortedMap<Monomial, RationalFunction> subMap(Monomial from, Monomial to) {
+            throw new UnsupportedOperationException();
+        }
+
+        @Override
+        public SortedMap<Monomial, RationalFunction> headMap(Monomial to) {
+            throw new UnsupportedOperationException();
+        }
+
+        @Override
+        public SortedMap<Monomial, RationalFunction> tailMap(Monomial from) {
+            throw new UnsupportedOperationException();
+        }
+
+        @Override
+        public Monomial firstKey() {
+            return entries[0].getKey();
+        }
+
+        @Override
+        public Monomial lastKey() {
+            return entries[size - 1].getKey();
+        }
     }
 
     /** Makes the coefficients free of collected names by expanding them (the one conflict rule). */
@@ -148,9 +224,13 @@ public final class Expression {
         if (c.isConstant() || m.isOne()) {
             return false;
         }
-        Set<String> vars = c.variables();
-        for (String v : m.names()) {
-            if (vars.contains(v)) {
+        return c.mentionsAny(v -> m.exponent(v) != 0);
+    }
+
+    /** Whether a monomial of this value has the collected variable {@code name}. */
+    public boolean collects(String name) {
+        for (Monomial m : terms.keySet()) {
+            if (m.exponent(name) != 0) {
                 return true;
             }
         }

@@ -688,6 +688,28 @@ public final class RationalFunction {
         return any;
     }
 
+    /** Whether some variable of this function satisfies the test (without building {@link #variables()}). */
+    public boolean mentionsAny(java.util.function.Predicate<String> test) {
+        for (String v : num.vars) {
+            if (test.test(v)) {
+                return true;
+            }
+        }
+        for (Polynomial l : lin) {
+            for (String v : l.vars) {
+                if (test.test(v)) {
+                    return true;
+                }
+            }
+        }
+        for (String v : cof.vars) {
+            if (test.test(v)) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /** Adds the variables to out without building the sorted set of {@link #variables()}. */
     void addVariablesTo(java.util.Collection<String> out) {
         SortedSet<String> v = variables;

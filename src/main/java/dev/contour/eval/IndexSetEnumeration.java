@@ -25,7 +25,11 @@ final class IndexSetEnumeration {
     }
 
     /** A constraint as {@code sum coefficients[i] * x_i + constant (= or <=) 0}. */
-    private record Linear(long[] coefficients, long constant, boolean equality, Span span) { }
+    private record Linear(long[] coefficients, long[] negatedCoefficients, long constant, boolean equality, Span span) {
+        Linear(long[] coefficients, long constant, boolean equality, Span span) {
+            this(coefficients, negated(coefficients), constant, equality, span);
+        }
+    }
 
     private final List<String> names;
     private final long[] lo;
@@ -162,7 +166,7 @@ final class IndexSetEnumeration {
             for (Linear c : constraints) {
                 changed |= narrow(c.coefficients(), c.constant(), l, h);
                 if (c.equality()) {
-                    changed |= narrow(negated(c.coefficients()), -c.constant(), l, h);
+                    changed |= narrow(c.negatedCoefficients(), -c.constant(), l, h);
                 }
             }
             for (int i = 0; i < l.length; i++) {

@@ -486,21 +486,16 @@ public final class Interpreter {
      */
     private static RationalFunction inverseOfFactors(List<Value> factors, Expression dividend) {
         RationalFunction inverse = RationalFunction.ONE;
-        Set<String> collected = null;
+        // A large dividend's set of names is worth building (and is kept); a small one is scanned.
+        java.util.function.Predicate<String> collected = dividend.terms().size() > 8
+                ? dividend.collectedVariables()::contains : dividend::collects;
         for (Value v : factors) {
             if (!(v instanceof ExprValue e) || !e.value().isRational() || e.value().isZero()) {
                 return null;
             }
             RationalFunction f = e.value().asRationalFunction();
-            if (!f.isConstant()) {
-                if (collected == null) {
-                    collected = dividend.collectedVariables();
-                }
-                for (String name : f.variables()) {
-                    if (collected.contains(name)) {
-                        return null;
-                    }
-                }
+            if (f.mentionsAny(collected)) {
+                return null;
             }
             inverse = inverse.divide(f);
         }
@@ -806,7 +801,8 @@ public final class Interpreter {
     private static final class Accumulator {
         private final Span span;
         private final EvaluationLimits limits;
-        private final Map<dev.contour.algebra.Monomial, dev.contour.algebra.RationalFunction> terms = new HashMap<>();
+        /** In the order first met, which Expression.of sorts cheaply (sums run through their monomials in long ascending runs). */
+        private final Map<dev.contour.algebra.Monomial, dev.contour.algebra.RationalFunction> terms = new LinkedHashMap<>();
         private final List<Term> symbolic = new ArrayList<>();
         private Value other;
 

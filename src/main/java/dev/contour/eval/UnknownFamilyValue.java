@@ -17,7 +17,8 @@ public final class UnknownFamilyValue implements Value {
     private final String name;
     private final List<String> indexNames;
     private final List<List<Integer>> members;
-    private final Set<List<Integer>> memberSet;
+    /** Member names: their string hashes spread well, where List<Integer> hashes of i + j + k = n collide in long chains. */
+    private final Set<String> memberSet;
     private final String description;
 
     /**
@@ -28,7 +29,10 @@ public final class UnknownFamilyValue implements Value {
         this.name = name;
         this.indexNames = List.copyOf(indexNames);
         this.members = members.stream().map(List::copyOf).toList();
-        this.memberSet = new HashSet<>(this.members);
+        this.memberSet = new HashSet<>(this.members.size() * 4 / 3 + 1);
+        for (List<Integer> m : this.members) {
+            memberSet.add(memberName(name, m));
+        }
         this.description = description;
     }
 
@@ -80,10 +84,11 @@ public final class UnknownFamilyValue implements Value {
         if (indices.size() != indexNames.size()) {
             throw new ContourException(name + " takes " + indexNames.size() + " indices, not " + indices.size(), span);
         }
-        if (!memberSet.contains(indices)) {
-            throw new ContourException(memberName(name, indices) + " is not in the family " + description, span);
+        String member = memberName(name, indices);
+        if (!memberSet.contains(member)) {
+            throw new ContourException(member + " is not in the family " + description, span);
         }
-        return Expression.collectedVariable(memberName(name, indices));
+        return Expression.collectedVariable(member);
     }
 
     @Override
