@@ -343,6 +343,9 @@ public final class Polynomial implements Comparable<Polynomial> {
     }
 
     public Polynomial subtract(Polynomial o) {
+        if (o.isConstant() && !o.isZero() && !isConstant()) {
+            return plusConstant(o.coeffs[0].negate());
+        }
         return add(o.negate());
     }
 

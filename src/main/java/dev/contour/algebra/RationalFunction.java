@@ -330,6 +330,9 @@ public final class RationalFunction {
     }
 
     public RationalFunction subtract(RationalFunction o) {
+        if (isPolynomial() && o.isPolynomial()) {
+            return of(num.subtract(o.num));
+        }
         return add(o.negate());
     }
 

@@ -118,6 +118,19 @@ final class IndexSetEnumeration {
             if (domain != null && !contains(domain, v)) {
                 continue;
             }
+            if (depth == names.size() - 1) {
+                // Every index is now fixed: propagation could only reject what the final check rejects.
+                long saved = l[depth];
+                l[depth] = v;
+                if (satisfied(l)) {
+                    if (out.size() >= maxSize) {
+                        throw new ContourException("the index set has more than " + maxSize + " members", null);
+                    }
+                    out.add(l.clone());
+                }
+                l[depth] = saved;
+                continue;
+            }
             long[] l2 = l.clone();
             long[] h2 = h.clone();
             l2[depth] = v;

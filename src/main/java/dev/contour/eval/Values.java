@@ -41,8 +41,9 @@ public final class Values {
         return (k.matches("^[aeiou].*") ? "an " : "a ") + k;
     }
 
-    private static final int CACHED_MIN = -64;
-    private static final ExprValue[] SMALL = new ExprValue[1024 - CACHED_MIN];
+    // Wide enough for the index arithmetic of weights in the hundreds (2*p - 2 + 2*k and the like).
+    private static final int CACHED_MIN = -4096;
+    private static final ExprValue[] SMALL = new ExprValue[4096 - CACHED_MIN];
 
     /** Wraps an exact integer (small ones are shared: sums and loops bind indices to them constantly). */
     public static ExprValue of(long n) {

@@ -12,6 +12,9 @@ import dev.contour.algebra.RationalFunction;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.constraints.IntRange;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -48,6 +51,31 @@ class AnsatzSumTest {
         }
         ContourException zero = assertThrows(ContourException.class, () -> session.run("show 1/((s - 1)*0)"));
         assertEquals("division by zero", zero.getMessage());
+    }
+
+    /** Index sets listed by bound propagation (the last index checked directly) equal a brute-force scan of a box. */
+    @Property(tries = 60)
+    void indexSetsMatchABruteForceScan(@ForAll @IntRange(min = 1, max = 3) int a, @ForAll @IntRange(min = -2, max = 3) int b,
+            @ForAll @IntRange(min = 0, max = 9) int d, @ForAll @IntRange(min = -3, max = 3) int e) {
+        String set = "i, j, k in -2..3 with " + a + "*i + " + b + "*j <= " + d + ", i + k >= " + e + ", j <= 6";
+        Scripts session = new Scripts();
+        session.run("vars x, y, z collected");
+        Expression listed = value(session, "sum " + set + " : x^i*y^j*z^(k + 2)");
+        Expression expected = Expression.ZERO;
+        Expression x = Expression.collectedVariable("x");
+        Expression y = Expression.collectedVariable("y");
+        Expression z = Expression.collectedVariable("z");
+        // i, j >= 0 without a domain; j <= 6 and a*i <= d - b*j bound them, k ranges over its domain.
+        for (int i = 0; i <= 20; i++) {
+            for (int j = 0; j <= 6; j++) {
+                for (int k = -2; k <= 3; k++) {
+                    if (a * i + b * j <= d && i + k >= e) {
+                        expected = expected.add(x.pow(i).multiply(y.pow(j)).multiply(z.pow(k + 2)));
+                    }
+                }
+            }
+        }
+        assertEquals(expected, listed, set);
     }
 
     private static Expression value(Scripts session, String expression) {
