@@ -36,8 +36,14 @@ public final class Expression {
     /** The collected names once asked for (unmodifiable, so safely published through the wrapper's final field). */
     private SortedSet<String> collected;
 
+    /** The coefficient when no collected variable occurs (ZERO for zero), else null; fixed at construction. */
+    private final RationalFunction rational;
+
+    /** The map must be complete: it is never changed afterwards. */
     private Expression(TreeMap<Monomial, RationalFunction> terms) {
         this.terms = terms;
+        this.rational = terms.isEmpty() ? RationalFunction.ZERO
+                : terms.size() == 1 && terms.firstKey().isOne() ? terms.get(Monomial.ONE) : null;
     }
 
     public static Expression constant(Rational c) {
@@ -279,7 +285,7 @@ public final class Expression {
 
     /** The coefficient of a value free of collected variables (ZERO for zero). */
     private RationalFunction rational() {
-        return terms.isEmpty() ? RationalFunction.ZERO : terms.firstEntry().getValue();
+        return rational;
     }
 
     /** This value with every coefficient multiplied by a non-zero c (collected structure unchanged). */
@@ -559,19 +565,19 @@ public final class Expression {
 
     /** True when no collected variable occurs. */
     public boolean isRational() {
-        return terms.isEmpty() || terms.size() == 1 && terms.firstKey().isOne();
+        return rational != null;
     }
 
     /** The value as one rational function; ContourException if a collected variable occurs. */
     public RationalFunction asRationalFunction() {
-        if (!isRational()) {
+        if (rational == null) {
             throw new ContourException("expected a value free of collected variables, got " + this);
         }
-        return isZero() ? RationalFunction.ZERO : terms.firstEntry().getValue();
+        return rational;
     }
 
     public boolean isConstant() {
-        return isRational() && asRationalFunction().isConstant();
+        return rational != null && rational.isConstant();
     }
 
     public Rational constantValue() {
