@@ -390,6 +390,9 @@ public final class Interpreter {
             if (b.operator() == Expr.Operator.DIVIDE && isProduct(b.right())) {
                 return divideByFactors(eval(b.left()), b);
             }
+            if (isAdditive(b) && isAdditive(b.left())) {
+                return additiveChain(b);
+            }
             return Arithmetic.binary(b.operator(), eval(b.left()), eval(b.right()), b.span(), options.limits());
         }
         if (e instanceof Expr.Negate n) {
@@ -441,6 +444,54 @@ public final class Interpreter {
             throw new ContourException("pattern variables such as '@" + v.name() + "' belong in rules", v.span());
         }
         throw new IllegalStateException("interpreter: unhandled expression " + e.getClass().getSimpleName());
+    }
+
+    private static boolean isAdditive(Expr e) {
+        return e instanceof Expr.Binary b && (b.operator() == Expr.Operator.ADD || b.operator() == Expr.Operator.SUBTRACT);
+    }
+
+    /**
+     * A chain {@code x0 +- x1 +- x2 ...} (index arithmetic such as {@code s - 2*p + 2 + 2*k}),
+     * evaluated and combined left to right as always, except that numbers met after an expression
+     * are held back and added in one step, so the symbolic part takes one addition instead of one
+     * per number. Exact addition is associative and values are canonical, so every value (and every
+     * error, met at the same step with the same left operand) is that of the plain evaluation.
+     */
+    private Value additiveChain(Expr.Binary chain) {
+        List<Expr.Binary> nodes = new ArrayList<>();
+        Expr e = chain;
+        while (isAdditive(e)) {
+            nodes.add((Expr.Binary) e);
+            e = ((Expr.Binary) e).left();
+        }
+        Collections.reverse(nodes); // innermost first: the order of evaluation and of combination
+        Value acc = eval(e);
+        Rational pending = Rational.ZERO;
+        for (Expr.Binary node : nodes) {
+            Value v = eval(node.right());
+            boolean minus = node.operator() == Expr.Operator.SUBTRACT;
+            if (acc instanceof ExprValue && v instanceof ExprValue x && x.value().isConstant()) {
+                pending = minus ? pending.subtract(x.value().constantValue()) : pending.add(x.value().constantValue());
+                continue;
+            }
+            acc = flush(acc, pending);
+            pending = Rational.ZERO;
+            try {
+                acc = Arithmetic.binary(node.operator(), acc, v, node.span(), options.limits());
+            } catch (ContourException x) {
+                throw x.at(node.span());
+            }
+        }
+        return flush(acc, pending);
+    }
+
+    /** An expression plus held-back numbers (a number has no names, so this cannot fail). */
+    private static Value flush(Value acc, Rational pending) {
+        if (pending.isZero()) {
+            return acc;
+        }
+        Expression a = ((ExprValue) acc).value();
+        return new ExprValue(a.isConstant() ? Values.constant(a.constantValue().add(pending)) : a.add(Values.constant(pending)));
     }
 
     private static boolean isProduct(Expr e) {

@@ -53,6 +53,23 @@ class AnsatzSumTest {
         assertEquals("division by zero", zero.getMessage());
     }
 
+    @Test
+    void additiveChainsHoldingBackNumbersKeepTheirValues() {
+        Scripts session = new Scripts();
+        session.run("vars s, t\nvars sigma collected\nlet p = 128\nlet k = 5");
+        Expression s = Expression.variable("s");
+        Expression t = Expression.variable("t");
+        Expression sigma = Expression.collectedVariable("sigma");
+        assertEquals(s.add(Expression.constant(-2 * 128 + 2 + 2 * 5)), value(session, "s - 2*p + 2 + 2*k"));
+        assertEquals(Expression.constant(3), value(session, "1 + 2 - s + s"));
+        assertEquals(s.subtract(t).add(Expression.constant(3)), value(session, "1 + s + 2 - t"));
+        assertEquals(sigma.multiply(s).add(Expression.constant(-1)), value(session, "sigma*s - 3 + 2 + 0"));
+        assertEquals(Expression.ZERO, value(session, "s - 1 + 1 - s"));
+        // a symbolic term in the chain: numbers before it are added to it as before
+        assertEquals(session.run("show Gamma(s) + 3").replace("Gamma(s) + 3", "X"),
+                session.run("show Gamma(s) + 1 + 2").replace("Gamma(s) + 1 + 2", "X"));
+    }
+
     /** Index sets listed by bound propagation (the last index checked directly) equal a brute-force scan of a box. */
     @Property(tries = 60)
     void indexSetsMatchABruteForceScan(@ForAll @IntRange(min = 1, max = 3) int a, @ForAll @IntRange(min = -2, max = 3) int b,
@@ -65,8 +82,8 @@ class AnsatzSumTest {
         Expression x = Expression.collectedVariable("x");
         Expression y = Expression.collectedVariable("y");
         Expression z = Expression.collectedVariable("z");
-        // i, j >= 0 without a domain; j <= 6 and a*i <= d - b*j bound them, k ranges over its domain.
-        for (int i = 0; i <= 20; i++) {
+        // i, j >= 0 without a domain; j <= 6 and a*i <= d - b*j <= 9 + 2*6 bound them, k ranges over its domain.
+        for (int i = 0; i <= 21; i++) {
             for (int j = 0; j <= 6; j++) {
                 for (int k = -2; k <= 3; k++) {
                     if (a * i + b * j <= d && i + k >= e) {
