@@ -141,17 +141,18 @@ public final class Rational implements Comparable<Rational> {
         return Math.abs(a);
     }
 
-    boolean isSmall() {
+    /** Whether numerator and denominator are held as longs (then {@link #longNum()} and {@link #longDen()} apply). */
+    public boolean isSmall() {
         return bnum == null;
     }
 
-    /** Numerator as a long; only valid when {@link #isSmall()}. */
-    long longNum() {
+    /** Numerator as a long; only valid when {@link #isSmall()} (a fast path that allocates nothing). */
+    public long longNum() {
         return num;
     }
 
     /** Denominator as a long; only valid when {@link #isSmall()}. */
-    long longDen() {
+    public long longDen() {
         return den;
     }
 

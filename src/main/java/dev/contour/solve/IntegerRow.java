@@ -93,16 +93,16 @@ final class IntegerRow {
         try {
             long lcm = 1;
             for (Rational v : vals) {
-                if (v.denominator().bitLength() > 62 || v.numerator().bitLength() > 62) {
+                if (!v.isSmall()) {
                     return null;
                 }
-                long d = v.denominator().longValue();
-                lcm = Math.multiplyExact(lcm / gcd(lcm, d), d);
+                long d = v.longDen();
+                lcm = d == 1 || d == lcm ? lcm : Math.multiplyExact(lcm / gcd(lcm, d), d);
             }
             long[] ints = new long[vals.length];
             long g = 0;
             for (int i = 0; i < vals.length; i++) {
-                ints[i] = Math.multiplyExact(vals[i].numerator().longValue(), lcm / vals[i].denominator().longValue());
+                ints[i] = Math.multiplyExact(vals[i].longNum(), lcm / vals[i].longDen());
                 g = gcd(g, Math.abs(ints[i]));
             }
             if (ints[0] < 0) {

@@ -151,22 +151,26 @@ public final class SparseSystem {
 
     /** Drops repeated equations (pieces of a large ansatz produce many identical rows). */
     private static List<IntegerRow> distinct(List<IntegerRow> all) {
-        Map<Integer, List<IntegerRow>> seen = new HashMap<>(all.size() * 2);
+        java.util.HashSet<Equation> seen = new java.util.HashSet<>(all.size() * 2);
         List<IntegerRow> out = new ArrayList<>();
         for (IntegerRow r : all) {
-            List<IntegerRow> same = seen.computeIfAbsent(r.equationHash(), h -> new ArrayList<>(1));
-            boolean dup = false;
-            for (IntegerRow s : same) {
-                if (s.sameEquation(r)) {
-                    dup = true;
-                    break;
-                }
-            }
-            if (!dup) {
-                same.add(r);
+            if (seen.add(new Equation(r))) {
                 out.add(r);
             }
         }
         return out;
+    }
+
+    /** A row compared as an equation: coefficients and right side, not the constraint it came from. */
+    private record Equation(IntegerRow row) {
+        @Override
+        public boolean equals(Object o) {
+            return o instanceof Equation e && row.sameEquation(e.row);
+        }
+
+        @Override
+        public int hashCode() {
+            return row.equationHash();
+        }
     }
 }
