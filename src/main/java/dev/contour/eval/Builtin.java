@@ -16,8 +16,19 @@ public record Builtin(String name, int minPositional, int maxPositional, Set<Str
         Value apply(Arguments arguments, Span span);
     }
 
+    /**
+     * In {@code namedArguments}: any declared variable may name an argument (as in
+     * {@code shift(x: 1, y: -2)}); the interpreter checks that each such name is a variable.
+     */
+    public static final String ANY_VARIABLE = "<variable>";
+
     public Builtin {
         namedArguments = Set.copyOf(namedArguments);
+    }
+
+    /** Whether any declared variable may name an argument. */
+    public boolean takesVariableNames() {
+        return namedArguments.contains(ANY_VARIABLE);
     }
 
     /** A built-in with exactly {@code arity} positional arguments and nothing else. */
@@ -36,7 +47,7 @@ public record Builtin(String name, int minPositional, int maxPositional, Set<Str
                     + ", not " + n, span);
         }
         for (Arguments.Argument a : arguments.named()) {
-            if (!namedArguments.contains(a.name())) {
+            if (!namedArguments.contains(a.name()) && !takesVariableNames()) {
                 throw new ContourException(name + " has no argument named '" + a.name() + "'"
                         + (namedArguments.isEmpty() ? "" : " (it takes " + String.join(", ", new java.util.TreeSet<>(namedArguments)) + ")"), a.span());
             }

@@ -600,6 +600,15 @@ public final class Interpreter {
             args.add(new Arguments.Argument(a.kind(), a.name(), eval(a.value()), a.span()));
         }
         String name = callee instanceof Builtin b ? b.name() : c.callee() instanceof Expr.Name n ? n.name() : "the call";
+        if (callee instanceof Builtin b && b.takesVariableNames()) {
+            for (Arguments.Argument a : args) {
+                if (a.name() != null && a.kind() == Expr.ArgumentKind.NAMED && !variables.containsKey(a.name())
+                        && !b.namedArguments().contains(a.name())) {
+                    throw new ContourException(name + ": '" + a.name() + "' is not a declared variable"
+                            + " (declare it with 'vars " + a.name() + "')", a.span());
+                }
+            }
+        }
         try {
             return callable.call(new Arguments(name, args), c.span());
         } catch (ContourException x) {

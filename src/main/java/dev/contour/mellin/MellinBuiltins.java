@@ -32,7 +32,7 @@ import java.util.Set;
 public final class MellinBuiltins implements BuiltinProvider {
     @Override
     public void register(BuiltinRegistry r) {
-        r.register(new Builtin("shift", 0, 2, Set.of("s", "t"), false,
+        r.register(new Builtin("shift", 0, 2, Set.of(Builtin.ANY_VARIABLE), false,
                 "shift(s: -2, t: 2) or shift({x, y}, {a, b}): the operator f(s, t) -> f(s - 2, t + 2)", MellinBuiltins::shift));
         r.register(new Builtin("mellin_measure", 0, 0, Set.of("gamma", "kernel", "eliminate", "total"), false,
                 "mellin_measure(gamma: {x, {y, 2}}, kernel: {s/2, t/2 - p}, eliminate: u, total: 4*p): Gamma(x) Gamma(y)^2 with U^(s/2) V^(t/2-p)",

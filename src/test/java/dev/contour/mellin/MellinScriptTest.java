@@ -133,6 +133,19 @@ class MellinScriptTest {
     }
 
     @Test
+    void shiftsNameAnyDeclaredVariable() {
+        RunResult r = run("""
+                vars x, y
+                check shift(x: 1, y: -2)(x*y) == (x + 1)*(y - 2)
+                check shift(x: 1/2) * shift(x: -1/2) == 1
+                """, OutputFormat.PLAIN);
+        assertEquals(2, r.checksPassed(), output());
+        ContourException e = assertThrows(ContourException.class, () -> run("vars x\nshow shift(xx: 1)\n", OutputFormat.PLAIN));
+        assertEquals("shift: 'xx' is not a declared variable (declare it with 'vars xx')", e.getMessage());
+        assertEquals(2, e.span().line());
+    }
+
+    @Test
     void wardOperatorPrintsAndReadsBack() {
         assertTrue(printsAndReadsBack("show ward(2)").contains("*shift(s: -4)"));
         // physics-reference section 4: the coefficients of R-hat are products of squared Pochhammer
