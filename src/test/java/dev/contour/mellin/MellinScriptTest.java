@@ -84,6 +84,27 @@ class MellinScriptTest {
     }
 
     @Test
+    void aSweepOverTheWeightDeclaresEachWeightsUnknowns() {
+        // Unique up to normalisation for every p (arXiv:1608.06624, arXiv:1710.05923); the values
+        // a[1,1,p-4] = ((p-2)!/(p-4)!)^2 are the closed form a[i,j,k] = ((p-2)!/(i! j! k!))^2 that
+        // SupergravityAnsatzTest checks against an independent elimination (not a published value).
+        String script = """
+                use "ads5s5.ctr"
+                for p in 4..7 {
+                    unknown a[i, j, k] with i + j + k = p - 2
+                    let Mred = (sum i, j, k with i + j + k = p - 2 :
+                        a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+                    let sol = solve supergravity_poles(ward(p)(Mred), p) for a
+                    show free_unknowns(sol)
+                    check a[1, 1, p - 4] with sol normalized a[0, 0, p - 2] = 1 == ((p - 2)!/(p - 4)!)^2
+                }
+                """;
+        RunResult r = run(script, OutputFormat.PLAIN);
+        assertEquals(4, r.checksPassed(), output());
+        assertTrue(output().contains("[p = 7] free_unknowns(sol) = {a[0,0,5]}"), output());
+    }
+
+    @Test
     void anOperatorAppliedToAnAnsatzIsTheSameValueCollectedOrNot() {
         // common practice: E(F(f)) = (E*F)(f); the solver reads ward(p)(Mred) uncollected, and its
         // solution must be the one found from the collected expression (ward(p)(Mred) + 0 forces that)
