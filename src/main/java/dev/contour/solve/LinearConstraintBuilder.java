@@ -40,10 +40,11 @@ public final class LinearConstraintBuilder {
     /** The equations of all constraints. */
     public SparseSystem build(SolveProgress progress) {
         SparseSystem system = new SparseSystem(unknowns);
-        AtomicLong generated = new AtomicLong();
-        for (Constraint c : constraints) {
+        for (int k = 0; k < constraints.size(); k++) {
+            Constraint c = constraints.get(k);
             int tag = system.constraint(c.span, c.label);
-            Map<Object, Accumulator> rows = collect(c, progress, generated);
+            progress.constraint(k + 1, constraints.size());
+            Map<Object, Accumulator> rows = collect(c, progress);
             // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
             system.addRows(new ArrayList<>(rows.values()).parallelStream().map(acc -> acc.toRow(tag)).toList());
         }
@@ -55,7 +56,7 @@ public final class LinearConstraintBuilder {
         return build(progress).solve(progress);
     }
 
-    private Map<Object, Accumulator> collect(Constraint c, SolveProgress progress, AtomicLong generated) {
+    private Map<Object, Accumulator> collect(Constraint c, SolveProgress progress) {
         Constraint.PieceSource src = c.source;
         List<String> vars = src.variables();
         Applier apply = applier(c.condition, vars);
@@ -70,8 +71,9 @@ public final class LinearConstraintBuilder {
                 apply.to(piece.terms.get(j), piece.monomials.get(j),
                         (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
             }
-            if (pieces.incrementAndGet() % CHUNK == 0) {
-                progress.generated(generated.get() + local.size());
+            long done = pieces.incrementAndGet();
+            if (done % CHUNK == 0) {
+                progress.pieces(done, n);
             }
         }, (left, right) -> {
             Map<Object, Accumulator> big = left.map.size() >= right.map.size() ? left.map : right.map;

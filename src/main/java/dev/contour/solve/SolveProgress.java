@@ -4,7 +4,8 @@ import java.io.PrintStream;
 
 /**
  * Throttled progress lines for long solves: nothing during the first second, then at most one
- * line per second (equations generated, unknowns eliminated, unknowns determined exactly).
+ * line per second (which condition is being turned into equations and how many of its pieces are
+ * done; then the distinct equations and the unknowns determined exactly).
  */
 public final class SolveProgress {
     private static final long SECOND = 1_000_000_000L;
@@ -13,8 +14,6 @@ public final class SolveProgress {
     private final long start = System.nanoTime();
     private long lastReport = start;
     private volatile long generated;
-    private int eliminated;
-    private int determined;
 
     private SolveProgress(PrintStream out) {
         this.out = out;
@@ -30,19 +29,26 @@ public final class SolveProgress {
         return new SolveProgress(null);
     }
 
-    void generated(long equations) {
-        generated = equations;
-        tick("equations generated " + equations);
+    private int constraint = 1;
+    private int constraints = 1;
+
+    void constraint(int k, int of) {
+        constraint = k;
+        constraints = of;
     }
 
-    void eliminated(int pivots) {
-        eliminated = pivots;
-        tick("equations " + generated + ", eliminated " + pivots);
+    void pieces(long done, long of) {
+        tick("building equations" + (constraints > 1 ? " for condition " + constraint + " of " + constraints : "")
+                + ": " + (100 * done / Math.max(1, of)) + "% of " + of + " pieces");
+    }
+
+    void generated(long equations) {
+        generated = equations;
+        tick(equations + " distinct equations");
     }
 
     void determined(int unknowns) {
-        determined = unknowns;
-        tick("eliminated " + eliminated + ", determined exactly " + unknowns);
+        tick(generated + " distinct equations, " + unknowns + " unknowns determined");
     }
 
     private void tick(String what) {
