@@ -224,18 +224,15 @@ final class Display {
 
     /** The value as script text that evaluates back to it, or null when there is none. */
     String scriptText(Value v) {
+        return hasScriptForm(v) ? plain(v, false) : null;
+    }
+
+    /** Whether {@link #scriptText} gives text for the value (decided without rendering it). */
+    static boolean hasScriptForm(Value v) {
         if (v instanceof ExprValue || v instanceof TermValue || v instanceof StringValue || v instanceof RangeValue) {
-            return plain(v, false);
+            return true;
         }
-        if (v instanceof ListValue l) {
-            for (Value x : l.items()) {
-                if (scriptText(x) == null) {
-                    return null;
-                }
-            }
-            return plain(v, false);
-        }
-        return null;
+        return v instanceof ListValue l && l.items().stream().allMatch(Display::hasScriptForm);
     }
 
     private static String pad(String s, int width) {

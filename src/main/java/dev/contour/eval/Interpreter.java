@@ -166,11 +166,13 @@ public final class Interpreter {
             Value value = eval(l.value());
             globals.put(l.name(), value);
             if (fileDepth == 0) {
-                log.addLazily(SessionLog.Kind.LET, l.name(), () -> {
-                    String text = display.scriptText(value);
-                    return text == null ? "# let " + l.name() + " = <" + value.kind() + ">  (not saved: no script form)"
-                            : "let " + l.name() + " = " + text;
-                });
+                if (Display.hasScriptForm(value)) {
+                    log.addLazily(SessionLog.Kind.LET, l.name(), () -> "let " + l.name() + " = " + display.scriptText(value));
+                } else {
+                    // no script form (a solution, say): saved as the statement that computed it, which
+                    // refers to earlier names, so those are kept (an OTHER entry is never skipped over)
+                    log.add(SessionLog.Kind.OTHER, l.name(), l.source());
+                }
             }
         } else if (s instanceof Stmt.Def d) {
             checkFreeName(d.name(), d.span(), true);

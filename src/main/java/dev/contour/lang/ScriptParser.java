@@ -85,7 +85,7 @@ public final class ScriptParser {
         if (c instanceof VarsStatementContext v) {
             out.add(new Stmt.Vars(names(v.IDENT()), v.COLLECTED() != null, span));
         } else if (c instanceof LetStatementContext l) {
-            out.add(new Stmt.Let(l.IDENT().getText(), expr(l.expr()), span));
+            out.add(new Stmt.Let(l.IDENT().getText(), expr(l.expr()), source(c), span));
         } else if (c instanceof DefStatementContext d) {
             List<String> params = names(d.IDENT().subList(1, d.IDENT().size()));
             out.add(new Stmt.Def(d.IDENT(0).getText(), params, expr(d.expr()), source(c), span));

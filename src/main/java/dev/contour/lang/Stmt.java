@@ -16,7 +16,7 @@ public sealed interface Stmt {
     }
 
     /** {@code let name = value}. */
-    record Let(String name, Expr value, Span span) implements Stmt {
+    record Let(String name, Expr value, String source, Span span) implements Stmt {
         @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
         @Override public int hashCode() { return SpanlessEquality.hash(this); }
     }

@@ -344,10 +344,8 @@ public final class Session {
         } catch (IOException | RuntimeException e) {
             throw new ContourException("cannot write '" + file + "': " + describe(e), where);
         }
-        long unsaved = defs.lines().filter(l -> l.startsWith("# let ")).count();
         int lines = (int) defs.lines().count();
-        out.println("wrote " + lines + " line" + (lines == 1 ? "" : "s") + " to " + file
-                + (unsaved == 0 ? "" : " (" + unsaved + " value" + (unsaved == 1 ? " has" : "s have") + " no script form and " + (unsaved == 1 ? "is" : "are") + " left as comments)"));
+        out.println("wrote " + lines + " line" + (lines == 1 ? "" : "s") + " to " + file);
     }
 
     private void runFile(Path file, Span where) {

@@ -143,11 +143,28 @@ class StreamReplTest {
     }
 
     @Test
-    void valuesWithoutAScriptFormAreNamedWhenSaving() throws IOException {
-        Path saved = dir.resolve("alias.ctr");
-        Run r = repl("let alias = Gamma\n:write " + saved + "\n");
-        assertTrue(r.out().contains("(1 value has no script form and is left as comments)"), r.out());
-        assertTrue(Files.readString(saved).contains("# let alias"), Files.readString(saved));
+    void valuesWithoutAScriptFormAreSavedAsTheStatementsThatMadeThem() throws IOException {
+        // a solution has no script form of its own: the saved session recomputes it, after the
+        // definitions it used (a planted system: c[0] + c[1] = 2, c[1] = c[2])
+        Path saved = dir.resolve("solved.ctr");
+        String shows = "show c with sol\nshow alias(4)\n";
+        Run session = repl("""
+                unknown c[i] with i <= 2
+                let total = c[0] + c[1]
+                let sol = solve total == 2,
+                                c[1] - c[2] == 0 for c
+                let total = 0
+                let alias = Gamma
+                """ + shows + ":write " + saved + "\n");
+        assertEquals(0, session.code(), session.err());
+        String text = Files.readString(saved);
+        assertTrue(text.contains("let total = c[1] + c[0]\nlet sol = solve total == 2, c[1] - c[2] == 0 for c\n"), text);
+        assertTrue(text.contains("let alias = Gamma"), text);
+        Path rerun = dir.resolve("rerun-solved.ctr");
+        Files.writeString(rerun, text + shows);
+        Run script = script(rerun);
+        assertEquals(0, script.code(), script.err());
+        assertEquals(session.out().substring(0, session.out().indexOf("wrote ")), script.out());
     }
 
     @Test
