@@ -23,6 +23,19 @@ final class Display {
     }
 
     String show(Stmt.Show sh, Value v, String context) {
+        String shown = showIn(sh, v, context);
+        boolean asked = sh.options().stream().anyMatch(o -> o instanceof Stmt.As);
+        if (format == OutputFormat.JSON && asked && !shown.startsWith("{")) {
+            // a run printing JSON stays JSON: the text asked for by 'as latex' goes into a field
+            String latex = shown.startsWith("% ") ? shown.substring(shown.indexOf('\n') + 1) : shown;
+            boolean isLatex = shown.startsWith("% ");
+            return "{\"show\":" + JsonPrinter.string(context + sh.label()) + (isLatex ? ",\"latex\":" : ",\"text\":")
+                    + JsonPrinter.string(latex.endsWith("\n") ? latex.substring(0, latex.length() - 1) : latex) + "}\n";
+        }
+        return shown;
+    }
+
+    private String showIn(Stmt.Show sh, Value v, String context) {
         OutputFormat f = format;
         boolean factored = false;
         List<String> collect = null;
@@ -201,6 +214,11 @@ final class Display {
         if (v instanceof TermValue t) {
             return LatexPrinter.term(t.value(), factored);
         }
+        if (v instanceof ListValue l && l.items().stream().allMatch(x -> x instanceof ExprValue || x instanceof TermValue
+                || x instanceof ListValue)) {
+            return l.items().stream().map(x -> latex(x, factored))
+                    .collect(Collectors.joining(", ", "\\left\\{", "\\right\\}"));
+        }
         return isCore(v) ? "\\text{" + plain(v, factored).replace("\\", "") + "}" : v.render(OutputFormat.LATEX, factored);
     }
 
@@ -210,6 +228,10 @@ final class Display {
         }
         if (v instanceof TermValue t) {
             return JsonPrinter.term(t.value());
+        }
+        if (v instanceof ListValue l && l.items().stream().allMatch(x -> x instanceof ExprValue || x instanceof TermValue
+                || x instanceof ListValue)) {
+            return l.items().stream().map(Display::json).collect(Collectors.joining(",", "{\"kind\":\"list\",\"items\":[", "]}"));
         }
         if (isCore(v)) {
             return "{\"kind\":" + JsonPrinter.string(v.kind()) + ",\"text\":" + JsonPrinter.string(plain(v, false)) + "}";

@@ -10,6 +10,8 @@ import dev.contour.eval.ListValue;
 import dev.contour.eval.OutputFormat;
 import dev.contour.eval.Value;
 import dev.contour.eval.Values;
+import dev.contour.print.JsonPrinter;
+import dev.contour.print.LatexPrinter;
 import dev.contour.print.PlainPrinter;
 import java.util.List;
 import java.util.Map;
@@ -76,8 +78,35 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
 
     @Override
     public String render(OutputFormat format) {
-        if (solution instanceof Solution.Inconsistent bad) {
-            return "no solution: " + conflictText(bad);
+        if (solution instanceof Solution.Inconsistent bad && format != OutputFormat.JSON) {
+            return format == OutputFormat.LATEX ? "\\text{no solution: " + conflictText(bad) + "}" : "no solution: " + conflictText(bad);
+        }
+        if (format == OutputFormat.JSON) {
+            // {"kind":"solution","solution":"family","free":[...],"values":{"a[0]":<expression>,...}}
+            StringBuilder b = new StringBuilder("{\"kind\":\"solution\",\"solution\":")
+                    .append(JsonPrinter.string(solution.kind()));
+            if (solution instanceof Solution.Inconsistent bad) {
+                return b.append(",\"conflict\":").append(JsonPrinter.string(conflictText(bad))).append('}').toString();
+            }
+            List<String> free = solution instanceof Solution.Family f ? f.free() : List.of();
+            b.append(",\"free\":[").append(String.join(",", free.stream().map(JsonPrinter::string).toList()))
+                    .append("],\"values\":{");
+            boolean first = true;
+            for (Map.Entry<String, Expression> e : solution.assignments().entrySet()) {
+                b.append(first ? "" : ",").append(JsonPrinter.string(e.getKey())).append(':')
+                        .append(JsonPrinter.expression(e.getValue()));
+                first = false;
+            }
+            return b.append("}}").toString();
+        }
+        if (format == OutputFormat.LATEX) {
+            // one aligned row per unknown, ready to paste
+            StringBuilder b = new StringBuilder("\\begin{aligned}\n");
+            for (Map.Entry<String, Expression> e : solution.assignments().entrySet()) {
+                b.append("  ").append(LatexPrinter.expression(Expression.collectedVariable(e.getKey()), false))
+                        .append(" &= ").append(LatexPrinter.expression(e.getValue(), false)).append(" \\\\\n");
+            }
+            return b.append("\\end{aligned}").toString();
         }
         StringBuilder b = new StringBuilder();
         if (solution instanceof Solution.Family f) {

@@ -44,6 +44,21 @@ class ExamplesTest {
         }));
     }
 
+    @TestFactory
+    Stream<DynamicTest> everyExamplePrintsWellFormedJsonLines() throws IOException {
+        List<Path> scripts;
+        try (Stream<Path> files = Files.list(EXAMPLES)) {
+            scripts = files.filter(p -> p.toString().endsWith(".ctr") && Files.exists(Path.of(p.toString().replace(".ctr", ".out"))))
+                    .sorted().toList();
+        }
+        return scripts.stream().map(script -> DynamicTest.dynamicTest(script.getFileName() + " --json", () -> {
+            CliRunner r = CliRunner.run("--json", "run", script.toString());
+            List<String> lines = r.out().lines().toList();
+            assertTrue(!lines.isEmpty(), "no output from " + script);
+            lines.forEach(dev.contour.print.JsonSyntax::check);
+        }));
+    }
+
     private static String read(Path p) {
         try {
             return Files.readString(p, StandardCharsets.UTF_8);

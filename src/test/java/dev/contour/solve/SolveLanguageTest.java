@@ -10,6 +10,7 @@ import dev.contour.eval.InterpreterOptions;
 import java.io.ByteArrayOutputStream;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
@@ -89,6 +90,30 @@ class SolveLanguageTest {
                 """);
         assertEquals("c with sol = {c[0], 2 - c[0], 2 - c[0]}\n"
                 + "c with sol normalized c[0] = 5 = {5, -3, -3}\n", out);
+    }
+
+    @Test
+    void solutionsAndListsPrintAsLatexAndWellFormedJson() {
+        String out = run("""
+                unknown c[i] with i <= 2
+                let sol = solve c[0] + c[1] == 2, c[1] - c[2] == 0 for c
+                show sol as latex
+                show c with sol as latex
+                show sol as json
+                show c with sol as json
+                show solve c[0] == 1, c[0] == 2 for c as json
+                """);
+        assertTrue(out.contains("% sol\n\\begin{aligned}\n  c_{0} &= c_{0} \\\\\n  c_{1} &= 2 - c_{0} \\\\\n"), out);
+        assertTrue(out.contains("% c with sol\n\\left\\{c_{0}, 2 - c_{0}, 2 - c_{0}\\right\\}\n"), out);
+        List<String> json = out.lines().filter(l -> l.startsWith("{")).toList();
+        assertEquals(3, json.size(), out);
+        json.forEach(dev.contour.print.JsonSyntax::check);
+        assertTrue(json.get(0).contains("\"kind\":\"solution\",\"solution\":\"family\",\"free\":[\"c[0]\"]"), json.get(0));
+        assertTrue(json.get(1).contains("\"kind\":\"list\",\"items\":[{\"kind\":\"expression\""), json.get(1));
+        assertTrue(json.get(2).contains("\"solution\":\"inconsistent\",\"conflict\":"), json.get(2));
+        // the recognizer does reject what a solution used to print
+        assertThrows(IllegalArgumentException.class,
+                () -> dev.contour.print.JsonSyntax.check("{\"show\":\"sol\",\"value\":a family with 1 free unknown}"));
     }
 
     @Test
