@@ -41,44 +41,35 @@ public final class JsonSyntax {
     }
 
     private void object() {
-        i++;
-        space();
-        if (peek('}')) {
-            i++;
-            return;
-        }
-        while (true) {
-            space();
+        sequence('}', () -> {
             string();
             space();
             expect(':');
             space();
             value();
-            space();
-            if (peek(',')) {
-                i++;
-            } else {
-                expect('}');
-                return;
-            }
-        }
+        });
     }
 
     private void array() {
+        sequence(']', this::value);
+    }
+
+    /** After the opening bracket: elements separated by commas up to the closing one (none allowed). */
+    private void sequence(char close, Runnable element) {
         i++;
         space();
-        if (peek(']')) {
+        if (peek(close)) {
             i++;
             return;
         }
         while (true) {
             space();
-            value();
+            element.run();
             space();
             if (peek(',')) {
                 i++;
             } else {
-                expect(']');
+                expect(close);
                 return;
             }
         }
