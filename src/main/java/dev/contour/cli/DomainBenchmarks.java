@@ -13,7 +13,8 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
                 "build M = R^ M~ for the equal-weight AdS5xS5 ansatz, p = 2..128, then its pole and residue analysis",
                 out -> WardBench.runWard(out, 2, 4, 8, 16, 32, 64, 128)));
         r.register(BenchRegistry.Workload.report("solve",
-                "solve the equal-weight AdS5xS5 ansatz for polynomial residues, p = 2..512",
+                "run the equal-weight AdS5xS5 ansatz script (sum, ward(p), solve for polynomial residues), p = 2..512;"
+                        + " unknowns, equations, build and solve times",
                 out -> SolveBench.runSolve(out, 2, 8, 32, 64, 128, 256, 512)));
         r.register(BenchRegistry.Workload.report("ansatz-sum",
                 "evaluate the AdS5xS5 reduced ansatz as a script's sum over i + j + k = p - 2 with utilde eliminated, p = 32, 128, 512",
