@@ -23,26 +23,33 @@ final class Display {
     }
 
     String show(Stmt.Show sh, Value v, String context) {
-        String shown = showIn(sh, v, context);
-        boolean asked = sh.options().stream().anyMatch(o -> o instanceof Stmt.As);
-        if (format == OutputFormat.JSON && asked && !shown.startsWith("{")) {
-            // a run printing JSON stays JSON: the text asked for by 'as latex' goes into a field
-            String latex = shown.startsWith("% ") ? shown.substring(shown.indexOf('\n') + 1) : shown;
-            boolean isLatex = shown.startsWith("% ");
-            return "{\"show\":" + JsonPrinter.string(context + sh.label()) + (isLatex ? ",\"latex\":" : ",\"text\":")
-                    + JsonPrinter.string(latex.endsWith("\n") ? latex.substring(0, latex.length() - 1) : latex) + "}\n";
-        }
-        return shown;
-    }
-
-    private String showIn(Stmt.Show sh, Value v, String context) {
         OutputFormat f = format;
-        boolean factored = false;
-        List<String> collect = null;
         for (Stmt.ShowOption o : sh.options()) {
             if (o instanceof Stmt.As as) {
                 f = OutputFormat.valueOf(as.format().toUpperCase(java.util.Locale.ROOT));
-            } else if (o instanceof Stmt.Factored) {
+            }
+        }
+        if (format == OutputFormat.JSON && v instanceof StringValue) {
+            f = OutputFormat.JSON; // a heading is text in any form
+        }
+        if (format != OutputFormat.JSON || f == OutputFormat.JSON) {
+            return showIn(sh, v, context, f);
+        }
+        // a run printing JSON stays JSON: the text a statement asks for ('as latex') goes into a field
+        String text = showIn(sh, v, context, f);
+        if (f == OutputFormat.LATEX) {
+            text = text.substring(text.indexOf('\n') + 1); // the "% label" line is the JSON "show" field
+        }
+        return "{\"show\":" + JsonPrinter.string(context + sh.label()) + (f == OutputFormat.LATEX ? ",\"latex\":" : ",\"text\":")
+                + JsonPrinter.string(text.endsWith("\n") ? text.substring(0, text.length() - 1) : text) + "}\n";
+    }
+
+    /** The statement printed in format f. */
+    private String showIn(Stmt.Show sh, Value v, String context, OutputFormat f) {
+        boolean factored = false;
+        List<String> collect = null;
+        for (Stmt.ShowOption o : sh.options()) {
+            if (o instanceof Stmt.Factored) {
                 factored = true;
             } else if (o instanceof Stmt.CollectedBy c) {
                 collect = c.variables();

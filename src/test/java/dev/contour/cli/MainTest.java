@@ -116,6 +116,15 @@ class MainTest {
     }
 
     @Test
+    void aJsonRunStaysJsonWhenAStatementAsksForAnotherForm() throws IOException {
+        String file = script("j.ctr", "vars s\nshow {1, 2} as plain\nshow s^2 as latex\nshow \"heading\" as latex\n");
+        List<String> lines = CliRunner.run("--json", "run", file).out().lines().toList();
+        assertEquals(List.of("{\"show\":\"{1, 2}\",\"text\":\"{1, 2}\"}", "{\"show\":\"s^2\",\"latex\":\"s^{2}\"}",
+                "{\"show\":\"\\\"heading\\\"\",\"text\":\"heading\"}"), lines);
+        lines.forEach(dev.contour.print.JsonSyntax::check);
+    }
+
+    @Test
     void severalFilesRunInTurnWithHeaders() throws IOException {
         String a = script("a.ctr", "show 1\n");
         String b = script("b.ctr", "show 2\n");
