@@ -43,9 +43,14 @@ public record Arguments(String function, List<Argument> all) {
 
     /** The i-th positional argument as an exact expression. */
     public Expression expression(int i) {
+        return expressionValue(i).value();
+    }
+
+    /** The i-th positional argument as an expression value, not collected if it is an operator application. */
+    public ExprValue expressionValue(int i) {
         Value v = get(i);
         if (v instanceof ExprValue e) {
-            return e.value();
+            return e;
         }
         throw new ContourException(function + ": argument " + (i + 1) + " must be an expression, not a " + v.kind(), spanOf(i));
     }

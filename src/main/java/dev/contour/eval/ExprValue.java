@@ -35,6 +35,11 @@ public final class ExprValue implements Value {
         return value != null ? value : deferred.value();
     }
 
+    /** The inner variables of the value, read off an operator application without collecting it. */
+    public java.util.SortedSet<String> innerVariables() {
+        return value != null ? value.innerVariables() : deferred.innerVariables();
+    }
+
     /** The unexpanded operator application, when this value is one. */
     public Optional<ShiftedSum> shiftedSum() {
         return Optional.ofNullable(deferred);

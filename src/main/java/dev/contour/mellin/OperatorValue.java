@@ -75,10 +75,7 @@ public record OperatorValue(ShiftOperator operator) implements OperandValue, Cal
         if (arguments.all().size() != 1 || arguments.positional().size() != 1) {
             throw new ContourException("a shift operator applies to one amplitude: E(M)", span);
         }
-        if (!(arguments.get(0) instanceof ExprValue arg)) {
-            arguments.expression(0); // the error naming the argument
-            throw new IllegalStateException("unreachable");
-        }
+        ExprValue arg = arguments.expressionValue(0);
         // E(F(f)) = (E*F)(f): compose instead of collecting the inner application
         ShiftedSum inner = arg.shiftedSum().orElse(null);
         ShiftedSum applied = inner != null

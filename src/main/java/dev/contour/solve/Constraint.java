@@ -92,12 +92,14 @@ public final class Constraint {
     }
 
     /**
-     * A constraint on a shift operator applied to an ansatz, read piece by piece without collecting
-     * the sum (see {@link ShiftedPieces}); the collected value is used when the sum has another shape.
+     * A constraint on a value of the language. A shift operator applied to an ansatz is read piece
+     * by piece without collecting the sum (see {@link ShiftedPieces}); the collected value is used
+     * for anything else, and when the sum has another shape.
      */
-    public static Constraint on(dev.contour.algebra.ShiftedSum target, List<String> unknowns, Condition condition,
+    public static Constraint on(dev.contour.eval.ExprValue target, List<String> unknowns, Condition condition,
                                 Span span, String label) {
-        ShiftedPieces pieces = ShiftedPieces.of(target, unknowns, extraVariables(condition));
+        ShiftedPieces pieces = target.shiftedSum()
+                .map(sum -> ShiftedPieces.of(sum, unknowns, extraVariables(condition))).orElse(null);
         return pieces != null ? new Constraint(pieces, condition, span, label)
                 : on(target.value(), unknowns, condition, span, label);
     }

@@ -42,7 +42,7 @@ public final class SolveBuiltins implements BuiltinProvider {
         r.register(new Builtin("growth_at_most", 3, Integer.MAX_VALUE, Set.of(), false,
                 "growth_at_most(E, d, s, t): E(b s, b t) grows at most like b^d as b grows", SolveBuiltins::growth));
         r.register(Builtin.of("vanishes", 1, "vanishes(E): E is identically zero",
-                (a, span) -> new ConditionValue(List.of(new ConditionValue.Part(target(a), new Constraint.Vanishes())),
+                (a, span) -> new ConditionValue(List.of(new ConditionValue.Part(a.expressionValue(0), new Constraint.Vanishes())),
                         "vanishes")));
         r.register(Builtin.of("free_unknowns", 1, "free_unknowns(sol): the unknowns a family of solutions leaves free",
                 SolveBuiltins::freeUnknowns));
@@ -65,10 +65,7 @@ public final class SolveBuiltins implements BuiltinProvider {
                     builder.add(Constraint.on(diff, unknowns, new Constraint.Vanishes(), c.span(), label));
                 } else if (c.left() instanceof ConditionValue cv) {
                     for (ConditionValue.Part part : cv.parts()) {
-                        ExprValue target = part.target();
-                        builder.add(target.shiftedSum().isPresent()
-                                ? Constraint.on(target.shiftedSum().get(), unknowns, part.condition(), c.span(), cv.description())
-                                : Constraint.on(target.value(), unknowns, part.condition(), c.span(), cv.description()));
+                        builder.add(Constraint.on(part.target(), unknowns, part.condition(), c.span(), cv.description()));
                     }
                 } else {
                     throw new ContourException("a condition is 'A == B' or a condition such as residues_polynomial(M, ...),"
@@ -89,9 +86,8 @@ public final class SolveBuiltins implements BuiltinProvider {
     }
 
     private static Value poleCondition(Arguments a, Span span, boolean residues) {
-        ExprValue target = target(a);
-        Set<String> inner = target.shiftedSum().isPresent() ? target.shiftedSum().get().innerVariables()
-                : target.value().innerVariables();
+        ExprValue target = a.expressionValue(0);
+        Set<String> inner = target.innerVariables();
         List<Arguments.Argument> domains = a.domains();
         if (domains.isEmpty()) {
             throw new ContourException(a.function() + " needs pole lists such as s in 2..6 step 2", span);
@@ -143,24 +139,15 @@ public final class SolveBuiltins implements BuiltinProvider {
     }
 
     private static Value polynomialIn(Arguments a, Span span) {
-        return new ConditionValue(List.of(new ConditionValue.Part(target(a),
+        return new ConditionValue(List.of(new ConditionValue.Part(a.expressionValue(0),
                 new Constraint.PolynomialIn(variableNames(a, 1)))), "polynomial in " + String.join(", ", variableNames(a, 1)));
     }
 
     private static Value growth(Arguments a, Span span) {
         int d = a.integer(1);
         List<String> vars = variableNames(a, 2);
-        return new ConditionValue(List.of(new ConditionValue.Part(target(a), new Constraint.GrowthAtMost(vars, d))),
+        return new ConditionValue(List.of(new ConditionValue.Part(a.expressionValue(0), new Constraint.GrowthAtMost(vars, d))),
                 "growth at most degree " + d + " in " + String.join(", ", vars));
-    }
-
-    /** The first argument as an expression value, left uncollected when it is an operator application. */
-    private static ExprValue target(Arguments a) {
-        if (a.get(0) instanceof ExprValue e) {
-            return e;
-        }
-        a.expression(0); // the error naming the argument
-        throw new IllegalStateException("unreachable");
     }
 
     private static List<String> variableNames(Arguments a, int from) {

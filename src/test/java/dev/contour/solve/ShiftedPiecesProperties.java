@@ -67,7 +67,7 @@ class ShiftedPiecesProperties {
             default -> new Constraint.GrowthAtMost(List.of("s", "t"), 0);
         };
         Solution piecewise = new LinearConstraintBuilder(unknowns)
-                .add(Constraint.on(sum, unknowns, cond, AT, "piecewise")).solve(SolveProgress.silent());
+                .add(Constraint.on(dev.contour.eval.ExprValue.deferred(sum), unknowns, cond, AT, "piecewise")).solve(SolveProgress.silent());
         Solution collected = new LinearConstraintBuilder(unknowns)
                 .add(Constraint.on(sum.value(), unknowns, cond, AT, "collected")).solve(SolveProgress.silent());
         assertSameSolutions(piecewise, collected);
