@@ -74,6 +74,18 @@ public final class ShiftedSum {
         return argument;
     }
 
+    /** Whether no operator coefficient mentions any of these collected names (unknowns, say). */
+    public boolean coefficientsFreeOf(java.util.Collection<String> names) {
+        for (Block b : blocks) {
+            for (String v : b.coefficient().collectedVariables()) {
+                if (names.contains(v)) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+
     /** Inner variables of the value (a superset when terms cancel), without expanding it. */
     public SortedSet<String> innerVariables() {
         SortedSet<String> out = new TreeSet<>(argument.innerVariables());
@@ -88,13 +100,9 @@ public final class ShiftedSum {
      */
     public synchronized Expression value() {
         if (value == null) {
-            value = expand();
+            value = expandAt(blocks, argument);
         }
         return value;
-    }
-
-    private Expression expand() {
-        return expandAt(blocks, argument);
     }
 
     /** The collected sum of c * f(shifted) over the blocks (any shifts, collected variables included). */

@@ -78,6 +78,37 @@ final class FactoredTerm {
                 cofactor);
     }
 
+    /** The product with another term (forms on equal lines merge). Null for 0. */
+    FactoredTerm times(FactoredTerm o) {
+        List<LinearForm> fs = new ArrayList<>(forms.length + o.forms.length);
+        fs.addAll(List.of(forms));
+        fs.addAll(List.of(o.forms));
+        List<Integer> es = new ArrayList<>(fs.size());
+        for (int e : exps) {
+            es.add(e);
+        }
+        for (int e : o.exps) {
+            es.add(e);
+        }
+        Polynomial cof = cofactor == null ? o.cofactor : o.cofactor == null ? cofactor : cofactor.multiply(o.cofactor);
+        return of(coefficient.multiply(o.coefficient), fs, es, cof);
+    }
+
+    /**
+     * The term with its variables shifted, v -> v + amounts (positional, for the forms; by name,
+     * for the cofactor): forms keep their slopes and move their constants.
+     */
+    FactoredTerm translated(Rational[] amounts, java.util.Map<String, Polynomial> byName) {
+        List<LinearForm> fs = new ArrayList<>(forms.length);
+        List<Integer> es = new ArrayList<>(forms.length);
+        for (int i = 0; i < forms.length; i++) {
+            fs.add(forms[i].translate(amounts));
+            es.add(exps[i]);
+        }
+        Polynomial cof = cofactor == null || byName.isEmpty() ? cofactor : cofactor.substitute(byName);
+        return of(coefficient, fs, es, cof);
+    }
+
     int size() {
         return forms.length;
     }

@@ -8,7 +8,6 @@ import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.algebra.ShiftedSum;
 import java.util.ArrayList;
-import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
@@ -47,14 +46,8 @@ final class ShiftedPieces implements Constraint.PieceSource {
      * caller then uses the collected value.
      */
     static ShiftedPieces of(ShiftedSum sum, List<String> unknowns, Set<String> extra) {
-        Set<String> unknownSet = Set.copyOf(unknowns);
-        for (ShiftedSum.Block b : sum.blocks()) {
-            if (!b.coefficient().collectedVariables().stream().noneMatch(unknownSet::contains)
-                    || !linearDenominators(b.coefficient())) {
-                return null;
-            }
-        }
-        if (!linearDenominators(sum.argument())) {
+        if (!sum.coefficientsFreeOf(Set.copyOf(unknowns)) || !linearDenominators(sum.argument())
+                || !sum.blocks().stream().allMatch(b -> linearDenominators(b.coefficient()))) {
             return null;
         }
         TreeSet<String> names = new TreeSet<>(extra);
@@ -106,52 +99,22 @@ final class ShiftedPieces implements Constraint.PieceSource {
     public Piece piece(int i) {
         List<Monomial> ms = new ArrayList<>();
         List<FactoredTerm> ts = new ArrayList<>();
-        Map<Monomial, Monomial> products = new HashMap<>();
         argumentPieces.get(i).terms().forEach((ym, yf) -> {
             FactoredTerm y = Piece.factored(yf, vars);
             if (y == null) {
                 return;
             }
             for (Block b : blocks) {
-                FactoredTerm moved = shifted(y, b);
+                FactoredTerm moved = y.translated(b.amounts, b.substitution);
                 for (int j = 0; j < b.terms.size(); j++) {
-                    FactoredTerm t = product(b.terms.get(j), moved);
+                    FactoredTerm t = b.terms.get(j).times(moved);
                     if (t != null) {
-                        Monomial m = b.monomials.get(j).multiply(ym);
-                        ms.add(products.computeIfAbsent(m, x -> x));
+                        ms.add(b.monomials.get(j).multiply(ym));
                         ts.add(t);
                     }
                 }
             }
         });
         return new Piece(columns.get(i), ms, ts);
-    }
-
-    private static FactoredTerm shifted(FactoredTerm y, Block b) {
-        LinearForm[] forms = new LinearForm[y.forms.length];
-        for (int k = 0; k < forms.length; k++) {
-            forms[k] = y.forms[k].translate(b.amounts);
-        }
-        Polynomial cof = y.cofactor == null || b.substitution.isEmpty() ? y.cofactor : y.cofactor.substitute(b.substitution);
-        return FactoredTerm.of(y.coefficient, List.of(forms), asList(y.exps), cof);
-    }
-
-    private static FactoredTerm product(FactoredTerm a, FactoredTerm b) {
-        List<LinearForm> forms = new ArrayList<>(a.forms.length + b.forms.length);
-        forms.addAll(List.of(a.forms));
-        forms.addAll(List.of(b.forms));
-        List<Integer> exps = new ArrayList<>(forms.size());
-        exps.addAll(asList(a.exps));
-        exps.addAll(asList(b.exps));
-        Polynomial cof = a.cofactor == null ? b.cofactor : b.cofactor == null ? a.cofactor : a.cofactor.multiply(b.cofactor);
-        return FactoredTerm.of(a.coefficient.multiply(b.coefficient), forms, exps, cof);
-    }
-
-    private static List<Integer> asList(int[] xs) {
-        List<Integer> out = new ArrayList<>(xs.length);
-        for (int x : xs) {
-            out.add(x);
-        }
-        return out;
     }
 }

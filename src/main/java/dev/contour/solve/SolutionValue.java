@@ -15,6 +15,7 @@ import dev.contour.print.LatexPrinter;
 import dev.contour.print.PlainPrinter;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 
 /**
  * The language's view of a {@link Solution}: applied with {@code EXPR with sol}, shown by {@code show sol}.
@@ -42,7 +43,7 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
         if (target instanceof ExprValue e) {
             // an operator application stays uncollected when the unknowns sit in its argument only
             var sum = e.shiftedSum().orElse(null);
-            if (sum != null && sum.blocks().stream().noneMatch(b -> mentionsUnknowns(b.coefficient()))) {
+            if (sum != null && sum.coefficientsFreeOf(Set.copyOf(solution.unknowns()))) {
                 var moved = dev.contour.algebra.ShiftedSum.of(sum.blocks(), solution.substituteInto(sum.argument()));
                 if (moved != null) {
                     return ExprValue.deferred(moved);
@@ -122,10 +123,6 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
                     .append(PlainPrinter.expression(e.getValue(), false));
         }
         return b.toString();
-    }
-
-    private boolean mentionsUnknowns(Expression e) {
-        return e.collectedVariables().stream().anyMatch(solution.unknowns()::contains);
     }
 
     static String conflictText(Solution.Inconsistent bad) {
