@@ -34,10 +34,15 @@ public final class ShiftedSum {
 
         /** The shift as the linear substitution v -> v + amount. */
         public Map<String, Polynomial> substitution() {
-            Map<String, Polynomial> m = new HashMap<>();
-            shift.forEach((v, a) -> m.put(v, Polynomial.variable(v).add(Polynomial.constant(a))));
-            return m;
+            return translation(shift);
         }
+    }
+
+    /** The linear substitution v -> v + amount for each entry, for {@code substituteLinear}. */
+    public static Map<String, Polynomial> translation(Map<String, Rational> amounts) {
+        Map<String, Polynomial> m = new HashMap<>();
+        amounts.forEach((v, a) -> m.put(v, Polynomial.variable(v).add(Polynomial.constant(a))));
+        return m;
     }
 
     private final List<Block> blocks;

@@ -69,9 +69,7 @@ public record Shift(SortedMap<String, Rational> amounts) implements Comparable<S
 
     /** The shift as a linear substitution {@code v -> v + amount}, for {@code substituteLinear}. */
     public Map<String, Polynomial> substitution() {
-        Map<String, Polynomial> m = new HashMap<>();
-        amounts.forEach((v, a) -> m.put(v, Polynomial.variable(v).add(Polynomial.constant(a))));
-        return m;
+        return dev.contour.algebra.ShiftedSum.translation(amounts);
     }
 
     @Override

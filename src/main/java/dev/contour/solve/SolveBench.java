@@ -15,16 +15,12 @@ import java.nio.charset.StandardCharsets;
  * whole script's time, and of it the time spent building the equations and solving them.
  */
 public final class SolveBench {
-    /** The derivation timed for each weight (P is replaced by the weight). */
-    static final String SCRIPT = """
-            use "ads5s5.ctr"
-            let p = P
-            unknown a[i, j, k] with i + j + k = p - 2
-            let Mred = (sum i, j, k with i + j + k = p - 2 :
-                a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
-            let sol = solve supergravity_poles(ward(p)(Mred), p) for a
-            show free_unknowns(sol)
-            """;
+    /** The derivation timed for weight p: the ansatz of the "ansatz-sum" workload, then the solve. */
+    static String script(int p) {
+        return dev.contour.eval.AnsatzSumBench.script(p)
+                + "let sol = solve supergravity_poles(ward(p)(Mred), p) for a\n"
+                + "show free_unknowns(sol)\n";
+    }
 
     private SolveBench() { }
 
@@ -35,7 +31,7 @@ public final class SolveBench {
             PrintStream sink = new PrintStream(OutputStream.nullOutputStream(), true, StandardCharsets.UTF_8);
             Interpreter interpreter = new Interpreter(InterpreterOptions.to(sink), BuiltinRegistry.standard());
             long t0 = System.nanoTime();
-            RunResult r = interpreter.run(SCRIPT.replace("let p = P", "let p = " + p), "solve-bench-p" + p + ".ctr");
+            RunResult r = interpreter.run(script(p), "solve-bench-p" + p + ".ctr");
             long t1 = System.nanoTime();
             if (!(interpreter.lookup("sol") instanceof SolutionValue sv) || sv.figures() == null || !r.ok()) {
                 throw new IllegalStateException("the solve benchmark script did not run for p = " + p);

@@ -24,13 +24,7 @@ class MellinScriptTest {
 
     /** The equal-weight reduced ansatz Mred with unknowns a[i,j,k] at weight p (physics-reference section 4). */
     private static String ansatz(int p) {
-        return """
-                use "ads5s5.ctr"
-                let p = P
-                unknown a[i, j, k] with i + j + k = p - 2
-                let Mred = (sum i, j, k with i + j + k = p - 2 :
-                    a[i, j, k] * sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
-                """.replace("let p = P", "let p = " + p);
+        return dev.contour.eval.AnsatzSumBench.script(p);
     }
 
     private String output() {

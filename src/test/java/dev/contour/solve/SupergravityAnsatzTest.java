@@ -23,7 +23,7 @@ class SupergravityAnsatzTest {
     private static Solution solveScript(int p) {
         Interpreter interpreter = new Interpreter(InterpreterOptions.to(
                 new PrintStream(OutputStream.nullOutputStream(), true, StandardCharsets.UTF_8)), BuiltinRegistry.standard());
-        interpreter.run(SolveBench.SCRIPT.replace("let p = P", "let p = " + p), "ansatz.ctr");
+        interpreter.run(SolveBench.script(p), "ansatz.ctr");
         return ((SolutionValue) interpreter.lookup("sol")).solution();
     }
 
