@@ -796,6 +796,14 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (!any) {
             return this;
         }
+        if (values.size() == 1 || countSubstituted(values) == 1) {
+            for (String v : vars) {
+                Polynomial val = values.get(v);
+                if (val != null && val.totalDegree() <= 1) {
+                    return substituteAffine(v, val);
+                }
+            }
+        }
         List<Map<Integer, Polynomial>> powers = new ArrayList<>();
         Polynomial[] base = new Polynomial[vars.length];
         for (int v = 0; v < vars.length; v++) {
@@ -816,6 +824,33 @@ public final class Polynomial implements Comparable<Polynomial> {
             parts[t] = term;
         }
         return sum(parts, 0, parts.length);
+    }
+
+    private int countSubstituted(Map<String, Polynomial> values) {
+        int n = 0;
+        for (String v : vars) {
+            if (values.containsKey(v)) {
+                n++;
+            }
+        }
+        return n;
+    }
+
+    /**
+     * One variable replaced by a constant or a linear polynomial (the residue and crossing case):
+     * partial evaluation for a constant, Horner's scheme in x otherwise, so that no power of the
+     * value is ever expanded term by term.
+     */
+    private Polynomial substituteAffine(String x, Polynomial value) {
+        if (value.isConstant()) {
+            return evaluatePartially(Map.of(x, value.constantValue()));
+        }
+        Polynomial[] c = coefficientsIn(x);
+        Polynomial acc = c[c.length - 1];
+        for (int k = c.length - 2; k >= 0; k--) {
+            acc = acc.multiply(value).add(c[k]);
+        }
+        return acc;
     }
 
     /** Balanced sum, so that n parts cost O(total size * log n) rather than O(n * total size). */
@@ -971,8 +1006,33 @@ public final class Polynomial implements Comparable<Polynomial> {
 
     /** Coefficient of variable^power, a polynomial in the other variables. */
     public Polynomial coefficient(String variable, int power) {
-        Polynomial[] c = coefficientsIn(variable);
-        return power >= 0 && power < c.length ? c[power] : ZERO;
+        int v = indexOf(variable);
+        if (v < 0) {
+            return power == 0 ? this : ZERO;
+        }
+        // One pass over the terms: no dense array of every power's coefficient.
+        int n = 0;
+        for (int[] e : exps) {
+            if (e[v] == power) {
+                n++;
+            }
+        }
+        if (n == 0) {
+            return ZERO;
+        }
+        int[][] ex = new int[n][];
+        Rational[] co = new Rational[n];
+        int k = 0;
+        for (int t = 0; t < exps.length; t++) {
+            if (exps[t][v] == power) {
+                int[] e = exps[t].clone();
+                e[v] = 0;
+                ex[k] = e;
+                co[k++] = coeffs[t];
+            }
+        }
+        // Removing one variable keeps graded-lex order among terms of equal degree in it.
+        return fromArrays(vars, ex, co, true);
     }
 
     /** Dense coefficient array in {@code x}: index k holds the coefficient of x^k (length degree+1; empty for zero). */
@@ -982,25 +1042,28 @@ public final class Polynomial implements Comparable<Polynomial> {
             return isZero() ? new Polynomial[0] : new Polynomial[] {this};
         }
         int deg = degree(x);
-        @SuppressWarnings("unchecked")
-        List<int[]>[] ex = new List[deg + 1];
-        @SuppressWarnings("unchecked")
-        List<Rational>[] co = new List[deg + 1];
-        for (int k = 0; k <= deg; k++) {
-            ex[k] = new ArrayList<>();
-            co[k] = new ArrayList<>();
+        int[] count = new int[deg + 1];
+        for (int[] e : exps) {
+            count[e[v]]++;
         }
+        int[][][] ex = new int[deg + 1][][];
+        Rational[][] co = new Rational[deg + 1][];
+        for (int k = 0; k <= deg; k++) {
+            ex[k] = new int[count[k]][];
+            co[k] = new Rational[count[k]];
+        }
+        int[] fill = new int[deg + 1];
         for (int t = 0; t < exps.length; t++) {
             int k = exps[t][v];
             int[] e = exps[t].clone();
             e[v] = 0;
-            ex[k].add(e);
-            co[k].add(coeffs[t]);
+            ex[k][fill[k]] = e;
+            co[k][fill[k]++] = coeffs[t];
         }
         Polynomial[] out = new Polynomial[deg + 1];
         for (int k = 0; k <= deg; k++) {
             // Removing one variable keeps graded-lex order among terms of equal x-degree.
-            out[k] = fromArrays(vars, ex[k].toArray(new int[0][]), co[k].toArray(new Rational[0]), true);
+            out[k] = fromArrays(vars, ex[k], co[k], true);
         }
         return out;
     }

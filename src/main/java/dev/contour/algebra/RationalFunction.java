@@ -676,6 +676,66 @@ public final class RationalFunction {
                 live == m2.length ? m2 : Arrays.copyOf(m2, live), Polynomial.ONE);
     }
 
+    /**
+     * Where the residue at a simple pole still has a pole, without building the residue: for the
+     * simple pole of this function on its linear denominator factor {@code factor} (solved as
+     * {@code x = at}, {@code at} free of x), the first factor (in canonical order) of the residue's
+     * fully cancelled denominator that passes {@code relevant}, or null when there is none (also when
+     * the residue is zero). Stops at the first such factor: the images of the other denominator
+     * factors are tested against the numerator's image one at a time, by a modular screen and then
+     * exact division, and a factor that survives ends the search.
+     */
+    public Polynomial firstResiduePole(String x, Polynomial factor, Polynomial at, java.util.function.Predicate<Polynomial> relevant) {
+        int own = Arrays.asList(lin).indexOf(factor);
+        if (own < 0 || mult[own] != 1) {
+            throw new ContourException("internal: " + factor + " is not a simple pole of " + this);
+        }
+        Map<String, Polynomial> onPole = Map.of(x, at);
+        if (!cof.isOne()) {
+            RationalFunction r = multiply(of(factor)).substituteLinear(onPole);
+            for (LinearFactors.Factor d : r.denominatorFactors()) {
+                if (relevant.test(d.base())) {
+                    return d.base();
+                }
+            }
+            return null;
+        }
+        Polynomial n = num.substitute(onPole);
+        if (n.isZero()) {
+            return null;
+        }
+        TreeMap<Polynomial, Integer> images = new TreeMap<>();
+        for (int i = 0; i < lin.length; i++) {
+            if (i == own) {
+                continue;
+            }
+            Polynomial img = lin[i].substitute(onPole);
+            if (img.isZero()) {
+                throw new ContourException("division by zero: the denominator factor (" + lin[i] + ") vanishes at " + x + " = " + at);
+            }
+            if (!img.isConstant()) {
+                Rational c = img.content();
+                images.merge(c.isOne() ? img : img.multiply(c.inverse()), mult[i], Integer::sum);
+            }
+        }
+        for (Map.Entry<Polynomial, Integer> e : images.entrySet()) {
+            Polynomial base = e.getKey();
+            if (!relevant.test(base)) {
+                continue;
+            }
+            int m = e.getValue();
+            Polynomial q;
+            while (m > 0 && !n.isConstant() && (q = n.divideOrNull(base)) != null) {
+                n = q;
+                m--;
+            }
+            if (m > 0) {
+                return base;
+            }
+        }
+        return null;
+    }
+
     /** Whether p has a variable given a value; a value of degree above one throws. */
     private static boolean usesLinear(Polynomial p, Map<String, Polynomial> values) {
         boolean any = false;

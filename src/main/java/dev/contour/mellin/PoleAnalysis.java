@@ -62,8 +62,9 @@ public final class PoleAnalysis {
     /** The poles of every coefficient of {@code f} in the variables {@code mellin}, classified by {@code forms}. */
     public static Result of(Expression f, List<NamedForm> forms, Collection<String> mellin) {
         TreeMap<Monomial, List<Pole>> by = new TreeMap<>();
+        Map<LinearFactors.Factor, Pole> memo = new java.util.HashMap<>();
         f.terms().forEach((m, c) -> {
-            List<Pole> poles = poles(c, forms, mellin);
+            List<Pole> poles = poles(c, forms, mellin, memo);
             if (!poles.isEmpty()) {
                 by.put(m, poles);
             }
@@ -73,10 +74,26 @@ public final class PoleAnalysis {
 
     /** The poles of one rational function. */
     public static List<Pole> poles(RationalFunction c, List<NamedForm> forms, Collection<String> mellin) {
+        return poles(c, forms, mellin, null);
+    }
+
+    /**
+     * As {@link #poles(RationalFunction, List, Collection)}, with a memo of classified factors
+     * (null for none): the coefficients of one amplitude share a few hundred denominator factors.
+     */
+    static List<Pole> poles(RationalFunction c, List<NamedForm> forms, Collection<String> mellin,
+                            Map<LinearFactors.Factor, Pole> memo) {
         List<Pole> poles = new ArrayList<>();
         for (LinearFactors.Factor d : c.denominatorFactors()) {
-            if (mentionsAny(d.base(), mellin)) {
-                poles.add(classify(d.base(), d.multiplicity(), forms, mellin));
+            Pole known = memo == null ? null : memo.get(d);
+            if (known != null) {
+                poles.add(known);
+            } else if (mentionsAny(d.base(), mellin)) {
+                Pole pole = classify(d.base(), d.multiplicity(), forms, mellin);
+                poles.add(pole);
+                if (memo != null) {
+                    memo.put(d, pole);
+                }
             }
         }
         return poles;

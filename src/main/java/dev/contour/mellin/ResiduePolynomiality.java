@@ -24,8 +24,12 @@ import java.util.Map;
 public final class ResiduePolynomiality {
     private ResiduePolynomiality() { }
 
-    /** A non-polynomial residue: at {@code pole}, the residue still has the pole {@code other}. */
-    public record Failure(Monomial monomial, Pole pole, Pole other, RationalFunction residue) {
+    /**
+     * A non-polynomial residue: at {@code pole}, the residue still has a pole on {@code remaining}
+     * (a factor of its denominator, in the remaining variables); {@code other} names the original
+     * pole that factor comes from.
+     */
+    public record Failure(Monomial monomial, Pole pole, Pole other, Polynomial remaining) {
         public String describe() {
             return pole.describe() + " and " + other.describe() + " (coefficient of " + Collect.describe(monomial) + ")";
         }
@@ -59,17 +63,15 @@ public final class ResiduePolynomiality {
         // A simultaneous pole shows up twice (the residue at s = 2 keeps t = 4, the one at t = 4
         // keeps s = 2): report each unordered pair once per coefficient.
         java.util.Set<List<Object>> seen = new java.util.HashSet<>();
+        Map<LinearFactors.Factor, Pole> memo = new java.util.HashMap<>();
         f.terms().forEach((m, c) -> {
-            for (Pole pole : PoleAnalysis.poles(c, forms, mellin)) {
+            for (Pole pole : PoleAnalysis.poles(c, forms, mellin, memo)) {
                 String x = residueVariable(pole.factor(), mellin);
-                RationalFunction r = Residues.residueAtFactor(c, x, pole.factor());
-                for (LinearFactors.Factor d : r.denominatorFactors()) {
-                    if (PoleAnalysis.mentionsAny(d.base(), mellin)) {
-                        Pole other = origin(c, pole, x, d, forms, mellin);
-                        if (seen.add(List.of(m, java.util.Set.of(pole.factor(), other.factor())))) {
-                            failures.add(new Failure(m, pole, other, r));
-                        }
-                        break;
+                LinearFactors.Factor d = firstInnerPole(c, pole, x, mellin);
+                if (d != null) {
+                    Pole other = origin(c, pole, x, d, forms, mellin);
+                    if (seen.add(List.of(m, java.util.Set.of(pole.factor(), other.factor())))) {
+                        failures.add(new Failure(m, pole, other, d.base()));
                     }
                 }
             }
@@ -124,6 +126,26 @@ public final class ResiduePolynomiality {
             }
         });
         return out;
+    }
+
+    /**
+     * The first denominator factor mentioning a Mellin variable of the residue of {@code c} at
+     * {@code pole} (taken in x), or null when the residue is polynomial in them. A simple pole (the
+     * common case) is decided without building the residue; a higher one builds it.
+     */
+    private static LinearFactors.Factor firstInnerPole(RationalFunction c, Pole pole, String x, List<String> mellin) {
+        if (pole.order() == 1) {
+            Polynomial d = c.firstResiduePole(x, pole.factor(), Residues.solve(pole.factor(), x),
+                    f -> PoleAnalysis.mentionsAny(f, mellin));
+            return d == null ? null : new LinearFactors.Factor(d, 1);
+        }
+        RationalFunction r = Residues.residueAtFactor(c, x, pole.factor());
+        for (LinearFactors.Factor d : r.denominatorFactors()) {
+            if (PoleAnalysis.mentionsAny(d.base(), mellin)) {
+                return d;
+            }
+        }
+        return null;
     }
 
     /** The Mellin variable a residue at {@code factor = 0} is taken in: the first one the factor mentions. */

@@ -38,6 +38,11 @@ public final class Residues {
 
     /** The residue at the pole {@code factor = 0}, solved for x. */
     public static RationalFunction residueAtFactor(RationalFunction f, String x, Polynomial factor) {
+        for (LinearFactors.Factor d : f.denominatorFactors()) {
+            if (d.base().equals(factor)) {
+                return residueAtFactor(f, x, factor, d.multiplicity(), solve(factor, x));
+            }
+        }
         return residue(f, x, solve(factor, x));
     }
 

@@ -220,6 +220,91 @@ class FastPathsTest {
         }
     }
 
+    /** Reference for substitution: every term expanded on its own, the value's powers by repeated products. */
+    private static Polynomial termByTerm(Polynomial p, String x, Polynomial value) {
+        Polynomial sum = Polynomial.ZERO;
+        for (int t = 0; t < p.coeffs.length; t++) {
+            Polynomial term = Polynomial.constant(p.coeffs[t]);
+            for (int v = 0; v < p.vars.length; v++) {
+                Polynomial base = p.vars[v].equals(x) ? value : Polynomial.variable(p.vars[v]);
+                for (int k = 0; k < p.exps[t][v]; k++) {
+                    term = term.multiply(base);
+                }
+            }
+            sum = sum.add(term);
+        }
+        return sum;
+    }
+
+    @Property(tries = 300)
+    void oneVariableReplacedByAnAffineValueEqualsTermByTermExpansion(@ForAll("polys") Polynomial p,
+            @ForAll("affineValues") Polynomial value, @ForAll("variableNames") String x) {
+        Polynomial image = p.substitute(Map.of(x, value));
+        assertEquals(termByTerm(p, x, value), image);
+        assertEquals(termByTerm(p, x, value).toString(), image.toString());
+        assertEquals(termByTerm(p, x, value).variables(), image.variables());
+    }
+
+    @Property(tries = 300)
+    void theCoefficientOfOnePowerIsTheDenseArraysEntry(@ForAll("polys") Polynomial p, @ForAll("variableNames") String x,
+            @ForAll("smallPowers") int k) {
+        Polynomial[] dense = p.coefficientsIn(x);
+        Polynomial expected = k < dense.length ? dense[k] : Polynomial.ZERO;
+        assertEquals(expected, p.coefficient(x, k));
+        assertEquals(expected.toString(), p.coefficient(x, k).toString());
+        // and p is the sum of its coefficients times the powers of x
+        Polynomial back = Polynomial.ZERO;
+        for (int j = 0; j < dense.length; j++) {
+            back = back.add(p.coefficient(x, j).multiply(Polynomial.variable(x).pow(j)));
+        }
+        assertEquals(p, back);
+    }
+
+    @Property(tries = 300)
+    void theFirstPoleOfAResidueIsTheOneOfTheBuiltResidue(@ForAll("fns") RationalFunction f, @ForAll("forms") List<Polynomial> ls) {
+        // f over a product of forms: take the residue in s at each simple pole mentioning s.
+        RationalFunction g = f;
+        for (Polynomial l : ls) {
+            g = g.divide(RationalFunction.of(l));
+        }
+        for (LinearFactors.Factor d : g.denominatorFactors()) {
+            Polynomial l = d.base();
+            if (d.multiplicity() != 1 || l.degree("s") != 1 || l.totalDegree() != 1) {
+                continue;
+            }
+            Rational lambda = l.coefficient("s", 1).constantValue();
+            Polynomial at = l.coefficient("s", 0).multiply(lambda.inverse()).negate();
+            RationalFunction residue = g.multiply(RationalFunction.of(l)).substituteLinear(Map.of("s", at));
+            for (java.util.function.Predicate<Polynomial> relevant : List.<java.util.function.Predicate<Polynomial>>of(
+                    q -> q.variables().contains("t"), q -> q.variables().contains("u"), q -> true)) {
+                Polynomial expected = null;
+                for (LinearFactors.Factor r : residue.denominatorFactors()) {
+                    if (relevant.test(r.base())) {
+                        expected = r.base();
+                        break;
+                    }
+                }
+                assertEquals(expected, g.firstResiduePole("s", l, at, relevant), "residue " + residue + " of " + g + " at " + l);
+            }
+        }
+    }
+
+    @Provide
+    Arbitrary<Polynomial> affineValues() {
+        return Arbitraries.oneOf(Gen.linearForms(), Gen.rationals().map(Polynomial::constant),
+                Gen.linearForms().map(l -> l.substitute(Map.of("u", Polynomial.variable("w")))));
+    }
+
+    @Provide
+    Arbitrary<String> variableNames() {
+        return Arbitraries.of("s", "t", "u", "w");
+    }
+
+    @Provide
+    Arbitrary<Integer> smallPowers() {
+        return Arbitraries.integers().between(0, 4);
+    }
+
     @Provide
     Arbitrary<Rational> rationals() {
         return Gen.rationals();
