@@ -40,6 +40,17 @@ public final class LinearFactors {
         if (p.isConstant()) {
             return new Split(p.constantValue(), List.of(), Polynomial.ONE);
         }
+        if (p.coeffs.length == 1) {
+            // A monomial c * x^a * y^b ...: its factors are its variables, whatever the degrees.
+            List<Factor> vars = new ArrayList<>();
+            for (int v = 0; v < p.vars.length; v++) {
+                if (p.exps[0][v] > 0) {
+                    vars.add(new Factor(Polynomial.variable(p.vars[v]), p.exps[0][v]));
+                }
+            }
+            vars.sort(Comparator.comparing(Factor::base));
+            return new Split(p.coeffs[0], List.copyOf(vars), Polynomial.ONE);
+        }
         Rational unit = p.content();
         Polynomial q = p.primitivePart();
         List<Factor> found = new ArrayList<>();

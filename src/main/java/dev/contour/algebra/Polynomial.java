@@ -374,7 +374,7 @@ public final class Polynomial implements Comparable<Polynomial> {
             for (int t = 0; t < many.length; t++) {
                 int[] e = new int[u.length];
                 for (int v = 0; v < u.length; v++) {
-                    e[v] = many[t][v] + m[v];
+                    e[v] = exponentSum(many[t][v], m[v]);
                 }
                 ex[t] = e;
                 co[t] = manyC[t].multiply(mc);
@@ -435,10 +435,22 @@ public final class Polynomial implements Comparable<Polynomial> {
         return fromArrays(u, ex.toArray(new int[0][]), co.toArray(new Rational[0]), true);
     }
 
+    /** Above this degree (and far above the number of terms) dense coefficient arrays are refused, not attempted. */
+    static final int DENSE_DEGREE_LIMIT = 1 << 22;
+
+    /** a + b for exponents; a power beyond the int range is an error, never a wrapped exponent. */
+    static int exponentSum(int a, int b) {
+        int r = a + b;
+        if (((a ^ r) & (b ^ r)) < 0) {
+            throw new ContourException("exponent overflow: a power beyond " + Integer.MAX_VALUE);
+        }
+        return r;
+    }
+
     private static int[] shifted(int[] e, int[] m, int n) {
         int[] out = new int[n];
         for (int v = 0; v < n; v++) {
-            out[v] = e[v] + m[v];
+            out[v] = exponentSum(e[v], m[v]);
         }
         return out;
     }
@@ -646,7 +658,7 @@ public final class Polynomial implements Comparable<Polynomial> {
             for (int t = 0; t < dex.length; t++) {
                 int[] me = new int[u.length];
                 for (int v = 0; v < u.length; v++) {
-                    me[v] = dex[t][v] + qe[v];
+                    me[v] = exponentSum(dex[t][v], qe[v]);
                 }
                 Key k = new Key(me);
                 Rational c = rem.getOrDefault(k, Rational.ZERO).subtract(qc.multiply(d.coeffs[t]));
@@ -715,6 +727,9 @@ public final class Polynomial implements Comparable<Polynomial> {
             for (int[] e : me) {
                 d = Math.max(d, e[v]);
             }
+            if (d > 4 * me.length + 64) {
+                return modularValueBySquaring(me, val, p) == 0;
+            }
             pow[v] = new long[d + 1];
             pow[v][0] = 1;
             for (int k = 1; k <= d; k++) {
@@ -733,6 +748,51 @@ public final class Polynomial implements Comparable<Polynomial> {
             sum = (sum + c) % p;
         }
         return sum == 0;
+    }
+
+    /** This polynomial's value mod p at val (over the exponent rows me), powers by squaring: for sparse high degrees. */
+    private long modularValueBySquaring(int[][] me, long[] val, long p) {
+        long sum = 0;
+        for (int t = 0; t < me.length; t++) {
+            long c = modP(coeffs[t], p);
+            if (c < 0) {
+                return 0;
+            }
+            for (int v = 0; v < val.length && c != 0; v++) {
+                c = c * java.math.BigInteger.valueOf(val[v]).modPow(java.math.BigInteger.valueOf(me[t][v]),
+                        java.math.BigInteger.valueOf(p)).longValue() % p;
+            }
+            sum = (sum + c) % p;
+        }
+        return sum;
+    }
+
+    /** The largest k with x^k dividing this polynomial (x a variable; 0 when x does not occur or this is zero). */
+    int powerOfVariableDividing(String x) {
+        int v = indexOf(x);
+        if (v < 0 || exps.length == 0) {
+            return 0;
+        }
+        int k = Integer.MAX_VALUE;
+        for (int[] e : exps) {
+            k = Math.min(k, e[v]);
+        }
+        return k;
+    }
+
+    /** This polynomial divided by x^k, which must divide it. */
+    Polynomial divideByVariablePower(String x, int k) {
+        if (k == 0) {
+            return this;
+        }
+        int v = indexOf(x);
+        int[][] ex = new int[exps.length][];
+        for (int t = 0; t < exps.length; t++) {
+            ex[t] = exps[t].clone();
+            ex[t][v] -= k;
+        }
+        // Lowering one variable's exponent by the same k in every term keeps graded-lex order.
+        return fromArrays(vars, ex, coeffs.clone(), true);
     }
 
     /** c mod p, or -1 when the denominator is divisible by p. */
@@ -1042,6 +1102,10 @@ public final class Polynomial implements Comparable<Polynomial> {
             return isZero() ? new Polynomial[0] : new Polynomial[] {this};
         }
         int deg = degree(x);
+        if (deg > DENSE_DEGREE_LIMIT && deg > 64 * exps.length) {
+            throw new ContourException("degree " + deg + " in " + x + " is too high for this operation (it needs every power's"
+                    + " coefficient, and the polynomial has " + exps.length + " terms)");
+        }
         int[] count = new int[deg + 1];
         for (int[] e : exps) {
             count[e[v]]++;

@@ -96,6 +96,8 @@ public final class RationalFunction {
         Polynomial cof;
         /** Linear factors (with repetition) cancelled from the denominator. */
         final List<Polynomial> removed = new ArrayList<>();
+        /** Set when a cancelled power was too high to list in {@link #removed} (which is then incomplete). */
+        boolean removedOverflow;
 
         Builder(Polynomial num, Polynomial cof) {
             this.num = num;
@@ -118,6 +120,18 @@ public final class RationalFunction {
             for (Polynomial l : candidates) {
                 int e = factors.get(l);
                 Polynomial q;
+                if (l.coeffs.length == 1 && e > 1) {
+                    // A bare variable: its power in the numerator is read off, not found by repeated division.
+                    int k = Math.min(e, num.powerOfVariableDividing(l.vars[0]));
+                    num = num.divideByVariablePower(l.vars[0], k);
+                    e -= k;
+                    for (int i = 0; i < k && i < 64; i++) {
+                        removed.add(l);
+                    }
+                    if (k > 64) {
+                        removedOverflow = true;
+                    }
+                }
                 while (e > 0 && !num.isConstant() && (q = num.divideOrNull(l)) != null) {
                     num = q;
                     e--;
@@ -272,7 +286,7 @@ public final class RationalFunction {
         b.num = num.multiply(ma).add(o.num.multiply(mb));
         b.cancel(shared, commonCof);
         RationalFunction r = b.build();
-        if (lcmExpanded != null && !r.isZero()) {
+        if (lcmExpanded != null && !r.isZero() && !b.removedOverflow) {
             r.expanded = divideAll(lcmExpanded, b.removed);
         }
         return r;

@@ -108,7 +108,14 @@ public final class Interpreter {
             List<Stmt> statements = ScriptParser.parseScript(sourceText, fileName);
             frames = new ArrayDeque<>();
             for (Stmt s : statements) {
-                execute(s);
+                try {
+                    execute(s);
+                } catch (OutOfMemoryError e) {
+                    // The statement's intermediate values are unreachable once we are here.
+                    throw new ContourException("out of memory: this statement's expressions outgrew the Java heap ("
+                            + Runtime.getRuntime().maxMemory() / (1024 * 1024) + " MiB); a larger heap can be given with"
+                            + " CONTOUR_JAVA_OPTS=-Xmx...", s.span());
+                }
             }
         } catch (StackOverflowError e) {
             throw new ContourException("the script nests too deeply to evaluate");
@@ -374,6 +381,11 @@ public final class Interpreter {
             return evalUnlocated(e);
         } catch (ContourException x) {
             throw x.at(e.span());
+        } catch (ArithmeticException x) {
+            // Exact arithmetic checks its machine-word counters (exponents, multiplicities, sizes):
+            // an overflow there is a value too large to represent, reported where it arose.
+            throw new ContourException("integer overflow: a power, multiplicity or count beyond " + Integer.MAX_VALUE
+                    + " while evaluating this", e.span());
         }
     }
 

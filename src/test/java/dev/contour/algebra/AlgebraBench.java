@@ -97,8 +97,10 @@ class AlgebraBench {
             return acc;
         }, same);
         double ringsTree = median(() -> ringsSum(theirs, 0, theirs.size()), same);
-        System.out.printf("[bench a] sum of %d fractions k/((s-a)(t-b)(s+t-c)), CPU ms (median of %d): ours sequential %.1f, ours balanced %.1f; rings sequential %.1f, rings balanced %.1f (result: %d linear factors, numerator of %d terms)%n",
-                n, RUNS, oursSeq, oursTree, ringsSeq, ringsTree, result[0].denominatorFactors().size(), result[0].numerator().termCount());
+        System.out.printf("[bench a] sum of %d fractions k/((s-a)(t-b)(s+t-c)), CPU ms (median of %d): ours sequential %.1f, ours balanced %.1f; rings sequential %.1f, rings balanced %.1f; ratio ours/rings %.2f sequential, %.2f balanced, %.2f best to best (goal: below 1) (result: %d linear factors, numerator of %d terms)%n",
+                n, RUNS, oursSeq, oursTree, ringsSeq, ringsTree, oursSeq / ringsSeq, oursTree / ringsTree,
+                Math.min(oursSeq, oursTree) / Math.min(ringsSeq, ringsTree),
+                result[0].denominatorFactors().size(), result[0].numerator().termCount());
     }
 
     private static cc.redberry.rings.Rational<MultivariatePolynomial<BigInteger>> ringsSum(
@@ -146,7 +148,7 @@ class AlgebraBench {
                 throw new AssertionError("gcd differs from the reference");
             }
         });
-        System.out.printf("[bench b] gcd of dense trivariates of total degree 10 with a common factor of degree 5 (%d and %d terms), CPU ms (median of %d): ours %.1f, rings %.1f%n",
-                a.termCount(), b.termCount(), RUNS, ours, theirs);
+        System.out.printf("[bench b] gcd of dense trivariates of total degree 10 with a common factor of degree 5 (%d and %d terms), CPU ms (median of %d): ours %.1f, rings %.1f; ratio ours/rings %.2f (goal: below 2)%n",
+                a.termCount(), b.termCount(), RUNS, ours, theirs, ours / theirs);
     }
 }

@@ -38,6 +38,25 @@ class LinearFactorsTest {
         };
     }
 
+    @Test
+    void aMonomialSplitsIntoItsVariablesWhateverTheDegree() {
+        Polynomial m = S.pow(5).multiply(U.pow(2)).multiply(Rational.of(-3, 4));
+        LinearFactors.Split sp = LinearFactors.split(m);
+        assertEquals(Rational.of(-3, 4), sp.unit());
+        List<LinearFactors.Factor> expected = new java.util.ArrayList<>(List.of(new LinearFactors.Factor(S, 5),
+                new LinearFactors.Factor(U, 2)));
+        expected.sort(java.util.Comparator.comparing(LinearFactors.Factor::base));
+        assertEquals(expected, sp.factors());
+        assertEquals(Polynomial.ONE, sp.cofactor());
+        // The general path agrees: with a binomial factor added, the same factors plus that one.
+        LinearFactors.Split general = LinearFactors.split(m.multiply(T.add(Polynomial.ONE)));
+        assertEquals(sp.unit(), general.unit());
+        assertTrue(general.factors().containsAll(expected) && general.factors().size() == 3, general.factors().toString());
+        // A degree no dense algorithm could take is still immediate.
+        LinearFactors.Split huge = LinearFactors.split(S.pow(1_000_000_000));
+        assertEquals(List.of(new LinearFactors.Factor(S, 1_000_000_000)), huge.factors());
+    }
+
     @Property(tries = 150)
     void splitRecoversPlantedFactors(@ForAll("linears") List<Polynomial> ls, @ForAll("cofactorChoice") int k,
             @ForAll("cofactorChoice") int unit) {

@@ -203,6 +203,26 @@ class InterpreterTest {
     }
 
     @Test
+    void exponentsThatOutgrowAMachineWordAreALocatedErrorNeverAWrappedPower() {
+        // s^(3 * 10^9) does not fit the exponent's int: before, it printed s^-1294967296 and a check
+        // built on it passed. Now it is an error at the product.
+        ContourException e = error("vars s\nlet a = ((s^1000)^1000)^1000\nshow a*a*a");
+        assertTrue(e.getMessage().startsWith("exponent overflow"), e.getMessage());
+        assertEquals(new Span("test.ctr", 3, 6, 5), e.span());
+        // Collected variables carry exponents in monomials: the same limit, the same kind of error.
+        ContourException c = error("vars x collected\nlet a = ((x^1000)^1000)^1000\nshow a*a*a");
+        assertTrue(c.getMessage().contains("overflow"), c.getMessage());
+        assertEquals(3, c.span().line());
+    }
+
+    @Test
+    void highPowersOfOneVariableCancelWithoutDenseWork() {
+        // Cancelling s^(10^9) is reading off an exponent, not 10^9 divisions or a dense coefficient array.
+        assertEquals("b/(b*b) = 1/s^1000000000\n",
+                Scripts.output("vars s\nlet b = ((s^1000)^1000)^1000\nshow b/(b*b)"));
+    }
+
+    @Test
     void limitsStopRunawayScripts() {
         PrintStream quiet = new PrintStream(new ByteArrayOutputStream());
         EvaluationLimits tight = new EvaluationLimits(10, 100, 50, 20, Duration.ofSeconds(5));
