@@ -34,7 +34,14 @@ final class KroneckerProduct {
         return d;
     }
 
-    /** The product over variables u (exponent vectors over u), as a canonical polynomial. */
+    /** Above this many bits in one packed factor, the term-by-term product is used instead. */
+    private static final double MAX_PACKED_BITS = 1 << 27;
+
+    /**
+     * The product over variables u (exponent vectors over u), as a canonical polynomial; null when
+     * the packed integers would be too large (far past where BigInteger multiplication is quick,
+     * and towards the end of its range).
+     */
     static Polynomial multiply(String[] u, int[][] a, Rational[] ca, int[][] b, Rational[] cb) {
         int n = u.length;
         int[] radix = new int[n];
@@ -54,6 +61,9 @@ final class KroneckerProduct {
         int bitsB = maxBits(ib);
         int guard = 64 - Long.numberOfLeadingZeros(Math.min(a.length, b.length)) + 2;
         int width = (bitsA + bitsB + guard + 7) / 8;
+        if ((double) slots * width * 8 > MAX_PACKED_BITS) {
+            return null;
+        }
         BigInteger x = pack(a, ia, weight, slots, width);
         BigInteger y = pack(b, ib, weight, slots, width);
         BigInteger z = x.multiply(y);

@@ -384,8 +384,9 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (b.length <= MERGE_LIMIT || a.length <= MERGE_LIMIT) {
             return a.length >= b.length ? mergeProduct(u, a, coeffs, b, o.coeffs) : mergeProduct(u, b, o.coeffs, a, coeffs);
         }
-        if (KroneckerProduct.worthwhile(a, b, u.length)) {
-            return KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs);
+        Polynomial packed;
+        if (KroneckerProduct.worthwhile(a, b, u.length) && (packed = KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs)) != null) {
+            return packed;
         }
         return packedProduct(u, a, coeffs, b, o.coeffs);
     }

@@ -145,11 +145,13 @@ final class Display {
         if (o.holds()) {
             return prefix + "check " + context + c.label() + "  ok\n";
         }
-        String at = o.point() == null ? null : o.point().entrySet().stream()
+        // A check between constants has no point to name: its left and right values say it all.
+        String at = o.point() == null || o.point().isEmpty() ? null : o.point().entrySet().stream()
                 .map(x -> x.getKey() + " = " + x.getValue()).collect(Collectors.joining(", "));
         if (oneLine) {
             StringBuilder out = new StringBuilder(prefix + "check " + context + c.label() + "  FAILED");
             List<String> notes = new ArrayList<>();
+            notes.add("line " + c.span().line());
             if (o.firstDifference() != null) {
                 notes.add("coefficient of " + PlainPrinter.monomial(o.firstDifference()) + " differs");
             }

@@ -110,6 +110,9 @@ public final class Interpreter {
             for (Stmt s : statements) {
                 try {
                     execute(s);
+                } catch (StackOverflowError e) {
+                    throw new ContourException("this statement nests too deeply to evaluate (a very long chain of"
+                            + " operations: a sum over a range builds long sums without nesting)", s.span());
                 } catch (OutOfMemoryError e) {
                     // The statement's intermediate values are unreachable once we are here.
                     throw new ContourException("out of memory: this statement's expressions outgrew the Java heap ("
@@ -198,6 +201,11 @@ public final class Interpreter {
             use(u);
         } else if (s instanceof Stmt.Show sh) {
             Value v = eval(sh.value());
+            for (Stmt.ShowOption o : sh.options()) {
+                if (o instanceof Stmt.CollectedBy c) {
+                    requireDeclared(c.variables(), v, sh.span());
+                }
+            }
             if (!options.checksOnly()) {
                 options.out().print(display.show(sh, v, context()));
             }
@@ -255,6 +263,22 @@ public final class Interpreter {
 
     private String context() {
         return loopContext.isEmpty() ? "" : "[" + String.join(", ", loopContext) + "] ";
+    }
+
+    /** Every name to collect by is a declared variable (or one of the value's own), else an error with a suggestion. */
+    private void requireDeclared(List<String> names, Value v, Span span) {
+        java.util.Set<String> own = new java.util.HashSet<>();
+        if (v instanceof ExprValue e) {
+            own.addAll(e.value().innerVariables());
+            own.addAll(e.value().collectedVariables());
+        }
+        for (String n : names) {
+            if (!variables.containsKey(n) && !own.contains(n)) {
+                String near = Suggestions.nearest(n, variables.keySet());
+                throw new ContourException("'" + n + "' is not a declared variable, so nothing can be collected by it"
+                        + (near == null ? "" : "; did you mean '" + near + "'?"), span);
+            }
+        }
     }
 
     private void declareVariable(String name, boolean collected, Span span) {

@@ -12,6 +12,11 @@ public final class Suggestions {
         int bestDistance = Integer.MAX_VALUE;
         int allowed = name.length() <= 2 ? 1 : name.length() <= 5 ? 2 : 3;
         for (String c : candidates) {
+            if (c.equalsIgnoreCase(name)) {
+                return c; // a slip of the shift key beats any other near name
+            }
+        }
+        for (String c : candidates) {
             int d = distance(name, c);
             if (d <= allowed && d < bestDistance) {
                 best = c;

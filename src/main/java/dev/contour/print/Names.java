@@ -14,7 +14,9 @@ final class Names {
     static String latex(String name) {
         int bracket = name.indexOf('[');
         if (bracket > 0 && name.endsWith("]")) {
-            return latex(name.substring(0, bracket)) + "_{" + name.substring(bracket + 1, name.length() - 1) + "}";
+            String base = latex(name.substring(0, bracket));
+            // A base with its own subscript (c_x[1,0]) is braced: LaTeX refuses a double subscript.
+            return (base.contains("_") ? "{" + base + "}" : base) + "_{" + name.substring(bracket + 1, name.length() - 1) + "}";
         }
         int underscore = name.indexOf('_');
         if (underscore > 0 && underscore < name.length() - 1) {

@@ -131,8 +131,7 @@ public final class PlainPrinter {
             }
             if (!den.isEmpty()) {
                 String joined = String.join("*", den);
-                denominator = "/" + (den.size() == 1 && !(parts.denominatorScalar().equals(BigInteger.ONE) && den.get(0).contains("*"))
-                        ? joined : "(" + joined + ")");
+                denominator = "/" + (den.size() == 1 && !hasTopLevelProduct(den.get(0)) ? joined : "(" + joined + ")");
             }
         }
         if (!m.isOne()) {
@@ -142,6 +141,22 @@ public final class PlainPrinter {
             numerator.add("1");
         }
         return new Signed(negative, String.join("*", numerator) + denominator);
+    }
+
+    /** Whether text has a '*' or '/' outside parentheses (then it needs them after a '/'). */
+    private static boolean hasTopLevelProduct(String text) {
+        int depth = 0;
+        for (int i = 0; i < text.length(); i++) {
+            char c = text.charAt(i);
+            if (c == '(') {
+                depth++;
+            } else if (c == ')') {
+                depth--;
+            } else if (depth == 0 && (c == '*' || c == '/')) {
+                return true;
+            }
+        }
+        return false;
     }
 
     /** A factor to a power, parenthesised unless it is a bare variable or number. */

@@ -70,7 +70,14 @@ class InterpreterTest {
         List<String> lines = out.lines().toList();
         assertEquals(2, lines.size(), out);
         assertEquals("check s == s  ok", lines.get(0));
-        assertTrue(lines.get(1).startsWith("check s == 2*s  FAILED (coefficient of 1 differs; at s = "), lines.get(1));
+        assertTrue(lines.get(1).startsWith("check s == 2*s  FAILED (line 4; coefficient of 1 differs; at s = "), lines.get(1));
+    }
+
+    @Test
+    void aFailedCheckBetweenConstantsNamesNoPoint() {
+        String out = Scripts.output("check 1 == 2");
+        assertEquals("check 1 == 2  FAILED (line 1)\n    first difference, in the coefficient of 1:\n        left   1\n        right  2\n", out);
+        assertEquals("check 1 == 2  FAILED (line 1)\n", new Scripts(OutputFormat.PLAIN, true).run("check 1 == 2"));
     }
 
     @Test
@@ -213,6 +220,31 @@ class InterpreterTest {
         ContourException c = error("vars x collected\nlet a = ((x^1000)^1000)^1000\nshow a*a*a");
         assertTrue(c.getMessage().contains("overflow"), c.getMessage());
         assertEquals(3, c.span().line());
+    }
+
+    @Test
+    void aSingleDenominatorFactorIsParenthesisedOnce() {
+        // (a value printed as its own label is shown once)
+        assertEquals("3/(3*s - 1)\n", Scripts.output("vars s\nshow 3/(3*s - 1)"));
+        assertEquals("1/(3*s - 1)^2\n", Scripts.output("vars s\nshow 1/(3*s - 1)^2"));
+        // two factors, or a scalar and a factor, still need the parentheses
+        assertEquals("x = 1/(2*s*(s - 1))\n", Scripts.output("vars s\nlet x = 1/(2*s*(s - 1))\nshow x"));
+    }
+
+    @Test
+    void familyMembersWithSubscriptedNamesGiveCompilableLatex() {
+        String out = Scripts.output("unknown c_x[i, j] with i + j = 1\nshow c_x[1, 0] as latex");
+        assertTrue(out.contains("{c_{x}}_{1,0}"), out);
+        assertFalse(out.contains("}_{x}_{"), out);
+    }
+
+    @Test
+    void collectingByAnUndeclaredNameIsAnErrorWithASuggestion() {
+        ContourException e = error("vars s\nvars sigma collected\nshow (sigma + 1)^2 collected sigm");
+        assertEquals("'sigm' is not a declared variable, so nothing can be collected by it; did you mean 'sigma'?", e.getMessage());
+        assertEquals(3, e.span().line());
+        // a different case is the nearest name of all
+        assertEquals("unknown name 'X'; did you mean 'x'?", error("vars s, x\nshow X").getMessage());
     }
 
     @Test
