@@ -77,7 +77,7 @@ class InterpreterTest {
     void aFailedCheckBetweenConstantsNamesNoPoint() {
         String out = Scripts.output("check 1 == 2");
         assertEquals("check 1 == 2  FAILED (line 1)\n    first difference, in the coefficient of 1:\n        left   1\n        right  2\n", out);
-        assertEquals("check 1 == 2  FAILED (line 1)\n", new Scripts(OutputFormat.PLAIN, true).run("check 1 == 2"));
+        assertEquals("check 1 == 2  FAILED (line 1; coefficient of 1 differs)\n", new Scripts(OutputFormat.PLAIN, true).run("check 1 == 2"));
     }
 
     @Test
