@@ -186,6 +186,12 @@ public final class Interpreter {
             }
         } else if (s instanceof Stmt.Def d) {
             checkFreeName(d.name(), d.span(), true);
+            java.util.Set<String> seenParameters = new java.util.HashSet<>();
+            for (String p : d.parameters()) {
+                if (!seenParameters.add(p)) {
+                    throw new ContourException("the parameter '" + p + "' of " + d.name() + " is named twice", d.span());
+                }
+            }
             Map<String, Value> captured = new HashMap<>();
             frames.descendingIterator().forEachRemaining(captured::putAll); // inner frames win
             globals.put(d.name(), new FunctionValue(d.name(), d.parameters(), d.body(), d.source(), captured));

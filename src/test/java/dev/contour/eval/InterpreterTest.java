@@ -74,6 +74,13 @@ class InterpreterTest {
     }
 
     @Test
+    void aParameterNamedTwiceIsAnError() {
+        ContourException e = error("vars s\ndef f(a, a) = a + s");
+        assertEquals("the parameter 'a' of f is named twice", e.getMessage());
+        assertEquals(2, e.span().line());
+    }
+
+    @Test
     void aFailedCheckBetweenConstantsNamesNoPoint() {
         String out = Scripts.output("check 1 == 2");
         assertEquals("check 1 == 2  FAILED (line 1)\n    first difference, in the coefficient of 1:\n        left   1\n        right  2\n", out);
