@@ -2,6 +2,7 @@ package dev.contour.repl;
 
 import dev.contour.eval.OutputFormat;
 import java.nio.file.Path;
+import java.util.Map;
 
 /**
  * How a REPL session runs.
@@ -28,13 +29,23 @@ public record ReplSettings(Path historyFile, OutputFormat format, Path rules, bo
         return new ReplSettings(file, format, rules, debug);
     }
 
-    /** {@code $CONTOUR_HISTORY} when set (empty: none), else {@code .contour_history} in the user's home. */
+    /** {@code $CONTOUR_HISTORY} when set (empty: none), else {@code .contour_history} in {@code $HOME} (or the account's home). */
     public static Path defaultHistoryFile() {
-        String override = System.getenv(HISTORY_VARIABLE);
+        return defaultHistoryFile(System.getenv(), System.getProperty("user.home"));
+    }
+
+    /** The choice of {@link #defaultHistoryFile()} for a given environment and account home. */
+    static Path defaultHistoryFile(Map<String, String> env, String accountHome) {
+        String override = env.get(HISTORY_VARIABLE);
         if (override != null) {
             return override.isBlank() ? null : Path.of(override);
         }
-        String home = System.getProperty("user.home");
+        // ~ as the shell means it: $HOME when set (Java's user.home is the account's entry, which
+        // differs when HOME was changed), else the account's home.
+        String home = env.get("HOME");
+        if (home == null || home.isBlank()) {
+            home = accountHome;
+        }
         return home == null || home.isBlank() ? null : Path.of(home, ".contour_history");
     }
 }
