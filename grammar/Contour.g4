@@ -84,10 +84,14 @@ arith
     ;
 
 argument
-    : IDENT ':' expr         # namedArgument
+    : argumentName ':' expr  # namedArgument
     | IDENT 'in' arith       # domainArgument
     | expr                   # plainArgument
     ;
+
+// A named argument's name may be the word 'by' (partial_fractions(M, s, by: {sigma, tau})): before ':'
+// it cannot start an expression, so reading it as a name is unambiguous.
+argumentName : IDENT | 'by' ;
 
 primary
     : NUMBER                                   # numberPrimary

@@ -56,6 +56,11 @@ final class CoreBuiltins {
         Map<String, Integer> wanted = terms.keySet().iterator().next().exponents();
         List<String> vars = new ArrayList<>(wanted.keySet());
         List<Integer> exps = vars.stream().map(wanted::get).toList();
+        if (vars.isEmpty()) {
+            // coefficient(e, 1): the part of e free of every collected variable (the empty power product)
+            vars = new ArrayList<>(e.collectedVariables());
+            exps = vars.stream().map(v -> 0).toList();
+        }
         try {
             for (CollectedView.Row row : CollectedView.of(e, vars)) {
                 if (row.exponents().equals(exps)) {

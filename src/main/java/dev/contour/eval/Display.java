@@ -228,7 +228,7 @@ final class Display {
             return l.items().stream().map(x -> latex(x, factored))
                     .collect(Collectors.joining(", ", "\\left\\{", "\\right\\}"));
         }
-        return isCore(v) ? "\\text{" + plain(v, factored).replace("\\", "") + "}" : v.render(OutputFormat.LATEX, factored);
+        return isCore(v) ? LatexPrinter.text(plain(v, factored)) : v.render(OutputFormat.LATEX, factored);
     }
 
     private static String json(Value v) {

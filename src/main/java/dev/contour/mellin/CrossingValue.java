@@ -80,7 +80,10 @@ public record CrossingValue(CrossingMap map) implements CallableValue, OperandVa
             case LATEX -> {
                 List<String> parts = new ArrayList<>();
                 for (int i = 0; i < from.size(); i++) {
-                    parts.add(from.get(i) + " \\mapsto " + to.get(i));
+                    String v = from.get(i);
+                    String name = map.innerMap().containsKey(v) ? LatexPrinter.polynomial(dev.contour.algebra.Polynomial.variable(v))
+                            : LatexPrinter.expression(dev.contour.algebra.Expression.collectedVariable(v), false);
+                    parts.add(name + " \\mapsto " + to.get(i));
                 }
                 yield LatexPrinter.expression(map.prefactor(), false) + "\\, M\\big|_{" + String.join(",\\ ", parts) + "}";
             }

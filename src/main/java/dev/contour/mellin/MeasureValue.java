@@ -2,7 +2,9 @@ package dev.contour.mellin;
 
 import dev.contour.eval.OutputFormat;
 import dev.contour.eval.Value;
+import dev.contour.algebra.Polynomial;
 import dev.contour.print.JsonPrinter;
+import dev.contour.print.LatexPrinter;
 import dev.contour.print.PlainPrinter;
 
 import java.util.ArrayList;
@@ -26,8 +28,28 @@ public record MeasureValue(MellinMeasure measure) implements Value {
                 + (measure.u() == null ? "" : ", eliminate: " + measure.u() + ", total: " + PlainPrinter.polynomial(measure.sum())) + ")";
         return switch (format) {
             case PLAIN -> text;
-            case LATEX -> "\\text{" + text + "}";
+            case LATEX -> latex();
             case JSON -> "{\"kind\":\"Mellin measure\",\"text\":" + JsonPrinter.string(text) + "}";
         };
+    }
+
+    /**
+     * The Gamma product and the kernel, {@code \Gamma(x)^{2} ... \, U^{s/2} V^{t/2 - p}}, followed by the
+     * eliminated variable's constraint when there is one.
+     */
+    private String latex() {
+        StringBuilder b = new StringBuilder();
+        for (GammaPower g : measure.factors()) {
+            b.append(b.length() == 0 ? "" : " ").append("\\Gamma\\left(").append(LatexPrinter.polynomial(g.argument()))
+                    .append("\\right)").append(g.exponent() == 1 ? "" : "^{" + g.exponent() + "}");
+        }
+        b.append(b.length() == 0 ? "" : "\\,").append(" U^{").append(LatexPrinter.polynomial(measure.uExponent()))
+                .append("} V^{").append(LatexPrinter.polynomial(measure.vExponent())).append("}");
+        if (measure.u() != null) {
+            Polynomial u = measure.sum().subtract(Polynomial.variable(measure.s())).subtract(Polynomial.variable(measure.t()));
+            b.append(",\\quad ").append(LatexPrinter.polynomial(Polynomial.variable(measure.u()))).append(" = ")
+                    .append(LatexPrinter.polynomial(u));
+        }
+        return b.toString();
     }
 }

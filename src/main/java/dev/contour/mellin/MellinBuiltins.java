@@ -38,8 +38,12 @@ public final class MellinBuiltins implements BuiltinProvider {
                 "mellin_measure(gamma: {x, {y, 2}}, kernel: {s/2, t/2 - p}, eliminate: u, total: 4*p): Gamma(x) Gamma(y)^2 with U^(s/2) V^(t/2-p)",
                 MellinBuiltins::measure));
         r.register(new Builtin("mellin", 1, 1, Set.of("from", "to", "cross"), false,
-                "mellin(R, from: m1, to: m2): multiplication by R(U, V) as a shift operator from measure m1 to m2",
+                "mellin(X, from: m1, to: m2): X, a polynomial in U, V or a position operator with euler(U), euler(V), as a shift operator from measure m1 to m2",
                 MellinBuiltins::mellin));
+        r.register(new Builtin("euler", 1, 1, Set.of("cross"), false,
+                "euler(U): the position operator U d/dU (euler(V): V d/dV); compose with '*' in written order, "
+                        + "so euler(U)*U == U*euler(U) + U",
+                MellinBuiltins::euler));
         r.register(new Builtin("crossing", 2, 2, Set.of("factor"), false,
                 "crossing({s, t, sigma, tau}, {t, s, sigma/tau, 1/tau}, factor: tau^2): M -> factor * M(replaced)",
                 MellinBuiltins::crossing));
@@ -146,18 +150,58 @@ public final class MellinBuiltins implements BuiltinProvider {
     private static Value mellin(Arguments a, Span span) {
         MellinMeasure from = measureArg(required(a, "from", span));
         MellinMeasure to = measureArg(required(a, "to", span));
-        String u = "U";
-        String v = "V";
-        Optional<Arguments.Argument> cross = a.named("cross");
-        if (cross.isPresent()) {
-            List<Value> names = list(cross.get().value(), cross.get().span(), "mellin: cross");
-            if (names.size() != 2) {
-                throw new ContourException("mellin: cross names the two cross ratios, such as {U, V}", cross.get().span());
+        Optional<String[]> cross = crossRatios(a);
+        if (a.get(0) instanceof PositionOperatorValue x) {
+            if (cross.isPresent() && (!cross.get()[0].equals(x.u()) || !cross.get()[1].equals(x.v()))) {
+                throw new ContourException("mellin: the operator is in the cross ratios {" + x.u() + ", " + x.v()
+                        + "}, not {" + cross.get()[0] + ", " + cross.get()[1] + "}", a.spanOf(0));
             }
-            u = collectedName(names.get(0), cross.get().span());
-            v = collectedName(names.get(1), cross.get().span());
+            try {
+                return new OperatorValue(MellinDictionary.translate(x.operator(), from, to));
+            } catch (ContourException e) {
+                throw e.at(a.spanOf(0));
+            }
         }
-        return new OperatorValue(MellinDictionary.translate(a.expression(0), u, v, from, to));
+        String[] uv = cross.orElse(new String[] {"U", "V"});
+        return new OperatorValue(MellinDictionary.translate(a.expression(0), uv[0], uv[1], from, to));
+    }
+
+    /** The names given by {@code cross: {U, V}}, if any. */
+    private static Optional<String[]> crossRatios(Arguments a) {
+        Optional<Arguments.Argument> cross = a.named("cross");
+        if (cross.isEmpty()) {
+            return Optional.empty();
+        }
+        List<Value> names = list(cross.get().value(), cross.get().span(), a.function() + ": cross");
+        if (names.size() != 2) {
+            throw new ContourException(a.function() + ": cross names the two cross ratios, such as {U, V}", cross.get().span());
+        }
+        String u = collectedName(names.get(0), cross.get().span());
+        String v = collectedName(names.get(1), cross.get().span());
+        if (u.equals(v)) {
+            throw new ContourException(a.function() + ": the two cross ratios must differ", cross.get().span());
+        }
+        return Optional.of(new String[] {u, v});
+    }
+
+    /** {@code euler(U)}: the Euler operator U d/dU of one of the two cross ratios ({U, V} unless cross: says). */
+    private static Value euler(Arguments a, Span span) {
+        String[] uv = crossRatios(a).orElse(new String[] {"U", "V"});
+        String x;
+        try {
+            x = collectedName(a.get(0), a.spanOf(0));
+        } catch (ContourException e) {
+            throw new ContourException("euler: the argument must be a cross ratio, " + uv[0] + " or " + uv[1]
+                    + " (declared with 'vars " + uv[0] + ", " + uv[1] + " collected')", a.spanOf(0));
+        }
+        if (x.equals(uv[0])) {
+            return new PositionOperatorValue(PositionOperator.uDerivative(), uv[0], uv[1]);
+        }
+        if (x.equals(uv[1])) {
+            return new PositionOperatorValue(PositionOperator.vDerivative(), uv[0], uv[1]);
+        }
+        throw new ContourException("euler: '" + x + "' is not a cross ratio; they are " + uv[0] + " and " + uv[1]
+                + " (name others with cross: {X, Y})", a.spanOf(0));
     }
 
     private static Value crossing(Arguments a, Span span) {

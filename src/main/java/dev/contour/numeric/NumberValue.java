@@ -3,6 +3,7 @@ package dev.contour.numeric;
 import dev.contour.eval.OutputFormat;
 import dev.contour.eval.Value;
 import dev.contour.print.JsonPrinter;
+import dev.contour.print.LatexPrinter;
 import java.math.RoundingMode;
 import org.apfloat.Apcomplex;
 import org.apfloat.ApcomplexMath;
@@ -59,7 +60,7 @@ public record NumberValue(NumericResult result, boolean showError) implements Va
         String claim = result.digits() + " digits" + (showError ? ", error <= " + errorText() : "");
         return switch (format) {
             case PLAIN -> digitsText() + " (" + claim + ")";
-            case LATEX -> digitsText().replace(" i", "\\,i") + "\\ \\text{(" + claim + ")}";
+            case LATEX -> digitsText().replace(" i", "\\,i") + "\\ " + LatexPrinter.text("(" + claim + ")");
             case JSON -> "{\"kind\":\"number\",\"value\":" + JsonPrinter.string(digitsText()) + ",\"digits\":" + result.digits()
                     + ",\"error\":" + JsonPrinter.string(errorText()) + "}";
         };

@@ -18,6 +18,26 @@ import java.util.TreeMap;
 public final class LatexPrinter {
     private LatexPrinter() { }
 
+    /**
+     * {@code \text{...}} around plain text, with the characters LaTeX treats specially in text
+     * ({@code \ { } _ # % & $ ^ ~}) escaped, so the result compiles whatever the text holds.
+     */
+    public static String text(String plain) {
+        StringBuilder b = new StringBuilder("\\text{");
+        for (int i = 0; i < plain.length(); i++) {
+            char c = plain.charAt(i);
+            switch (c) {
+                case '\\' -> b.append("\\textbackslash{}");
+                case '{', '}', '_', '#', '%', '&', '$' -> b.append('\\').append(c);
+                case '^' -> b.append("\\textasciicircum{}");
+                case '~' -> b.append("\\textasciitilde{}");
+                case '\n' -> b.append(' ');
+                default -> b.append(c);
+            }
+        }
+        return b.append('}').toString();
+    }
+
     public static String rational(Rational r) {
         if (r.isInteger()) {
             return r.toString();

@@ -80,7 +80,7 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
     @Override
     public String render(OutputFormat format) {
         if (solution instanceof Solution.Inconsistent bad && format != OutputFormat.JSON) {
-            return format == OutputFormat.LATEX ? "\\text{no solution: " + conflictText(bad) + "}" : "no solution: " + conflictText(bad);
+            return format == OutputFormat.LATEX ? LatexPrinter.text("no solution: " + conflictText(bad)) : "no solution: " + conflictText(bad);
         }
         if (format == OutputFormat.JSON) {
             // {"kind":"solution","solution":"family","free":[...],"values":{"a[0]":<expression>,...}}
