@@ -82,7 +82,7 @@ final class SyntaxErrorStrategy extends DefaultErrorStrategy {
                     + found.getText() + " = ...'", where);
         }
         if (statementEnd && found.getType() != Token.EOF && !found.getText().equals("}")) {
-            return new ContourException("expected a statement (vars, let, def, unknown, use, show, check, for), found "
+            return new ContourException("expected a statement (vars, let, def, unknown, use, show, check, for, rule, derive), found "
                     + foundText, where);
         }
         if (isKeyword(found, vocabulary) && expected.contains(ContourLexer.IDENT)) {

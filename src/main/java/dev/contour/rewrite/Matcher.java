@@ -2,6 +2,7 @@ package dev.contour.rewrite;
 
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Monomial;
+import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.term.Term;
@@ -22,7 +23,13 @@ import java.util.Map;
  *   <li>for +: the non-constant part, and the constant c — split further into its integer part
  *       floor(c) and the fraction c - floor(c) when c is not an integer and floor(c) is not 0. So
  *       {@code @x + @n} with {@code integer(@n)} takes {@code s/2 + 3 - p} as @x = s/2 - p, @n = 3, and
- *       {@code s + 5/2} as @x = s + 1/2, @n = 2;</li>
+ *       {@code s + 5/2} as @x = s + 1/2, @n = 2. When the free variables of the sum outnumber these
+ *       pieces, the non-constant part is split further into its terms, in the canonical order of
+ *       the leaf, and every way of sharing them out (each variable taking at least one) is tried in
+ *       a fixed order, earlier variables keeping earlier terms longest: {@code g(@x + @y)} matches
+ *       {@code g(s + t)} first as @x = s, @y = t, then as @x = t, @y = s, and the first match the
+ *       guards admit is the one used. The finer split is only a fallback, so a pattern
+ *       matches every term it matched without it, with the same bindings;</li>
  *   <li>for *: the numeric coefficient of a single-term leaf and the rest.</li>
  * </ul>
  * A number written in a sum pattern takes part of the leaf's constant, of the same sign and no
@@ -30,7 +37,15 @@ import java.util.Map;
  * {@code Gamma(s)} or {@code Gamma(s - 1)}: shifting rules move constants towards 0 and stop);
  * in a product it divides the coefficient. A variable that is already bound is taken out arithmetically, which
  * is what lets {@code Gamma(@x + @n)/Gamma(@x)} match {@code Gamma(s + 3)/Gamma(s + 1)} with @n = 2.
- * No part ever matches the empty sum or product. At the root of a rule, the pattern may match part
+ *
+ * <p>A sum pattern that is affine in one pattern variable, c + k*@x with numbers c and k != 0 (such
+ * as {@code 1 - @x}, {@code 2*@x + 1} or {@code (@x + 3)/2}), is solved against a rational leaf L
+ * exactly: when @x is bound, the match holds exactly when c + k*@x equals L; when it is free and
+ * k != 1, it binds @x = (L - c)/k (so {@code k(@x, 1 - @x)} matches {@code k(s + 1/2, 1/2 - s)} and
+ * {@code Gamma(@x)*Gamma(1 - @x)} matches {@code Gamma(1/2 - s)*Gamma(s + 1/2)}). A free @x with
+ * k = 1 ({@code @x + c}) keeps the constant convention above, so shifting rules still terminate.
+ *
+ * <p>No part ever matches the empty sum or product (an affine solution may be 0). At the root of a rule, the pattern may match part
  * of a sum or product, and the rest is kept beside the replacement.
  */
 final class Matcher {
@@ -104,6 +119,12 @@ final class Matcher {
             }
             return List.of();
         }
+        if (p instanceof Pattern.Sum && t instanceof Term.Leaf leaf) {
+            List<Map<String, Term>> solved = solveAffine(p, leaf.value(), b);
+            if (solved != null) {
+                return solved;
+            }
+        }
         List<Match> out = new ArrayList<>();
         if (p instanceof Pattern.Sum s) {
             ac(ADDITIVE, s.parts(), ADDITIVE.split(t), b, false, false, out);
@@ -144,6 +165,80 @@ final class Matcher {
         Map<String, Term> out = new HashMap<>(b);
         out.put(name, t);
         return out;
+    }
+
+    // ------------------------------------------------------------------ affine patterns
+
+    /** c + k*@x: the constant, the coefficient and the one variable (null when the pattern has none). */
+    private record Affine(Expression constant, Expression coefficient, String variable) { }
+
+    /**
+     * The matches of a sum pattern affine in one variable against a leaf (see the class comment),
+     * or null when the pattern is not of that kind or the constant convention decides.
+     */
+    private static List<Map<String, Term>> solveAffine(Pattern p, Expression leaf, Map<String, Term> b) {
+        Affine a = affine(p);
+        if (a == null || a.variable() == null || a.coefficient().isZero()) {
+            return null;
+        }
+        Term bound = b.get(a.variable());
+        if (bound != null) {
+            if (!(bound instanceof Term.Leaf value)) {
+                return List.of();
+            }
+            Expression image = a.constant().add(a.coefficient().multiply(value.value()));
+            return image.equals(leaf) ? List.of(b) : List.of();
+        }
+        if (a.coefficient().equals(Expression.ONE)) {
+            return null;
+        }
+        Expression x = leaf.subtract(a.constant()).divide(a.coefficient());
+        return List.of(bind(b, a.variable(), Terms.of(x)));
+    }
+
+    /** The affine form of a pattern built from numbers and one variable by +, * and 1/, or null. */
+    private static Affine affine(Pattern p) {
+        if (p instanceof Pattern.Literal l) {
+            return new Affine(l.value(), Expression.ZERO, null);
+        }
+        if (p instanceof Pattern.Variable v) {
+            return new Affine(Expression.ZERO, Expression.ONE, v.name());
+        }
+        if (p instanceof Pattern.Sum s) {
+            Affine acc = new Affine(Expression.ZERO, Expression.ZERO, null);
+            for (Pattern part : s.parts()) {
+                Affine x = affine(part);
+                if (x == null || acc.variable() != null && x.variable() != null && !acc.variable().equals(x.variable())) {
+                    return null;
+                }
+                acc = new Affine(acc.constant().add(x.constant()), acc.coefficient().add(x.coefficient()),
+                        acc.variable() != null ? acc.variable() : x.variable());
+            }
+            return acc;
+        }
+        if (p instanceof Pattern.Product q) {
+            Affine acc = new Affine(Expression.ONE, Expression.ZERO, null);
+            for (Pattern f : q.factors()) {
+                Affine x = affine(f);
+                if (x == null) {
+                    return null;
+                }
+                if (x.variable() == null) {
+                    acc = new Affine(acc.constant().multiply(x.constant()), acc.coefficient().multiply(x.constant()), acc.variable());
+                } else if (acc.variable() == null) {
+                    acc = new Affine(acc.constant().multiply(x.constant()), acc.constant().multiply(x.coefficient()), x.variable());
+                } else {
+                    return null;
+                }
+            }
+            return acc;
+        }
+        if (p instanceof Pattern.Power w && w.exponent() == -1) {
+            Affine x = affine(w.base());
+            return x == null || x.variable() != null || x.constant().isZero() ? null
+                    : new Affine(Expression.ONE.divide(x.constant()), Expression.ZERO, null);
+        }
+        return null;
     }
 
     // ------------------------------------------------------------------ AC matching
@@ -406,6 +501,17 @@ final class Matcher {
         }
         int k = vars.size();
         int slots = allowRest ? k + 1 : k;
+        if (pieces.size() < k && op == ADDITIVE) {
+            // The fallback of the class comment: the non-constant part of the leaf in its terms.
+            pieces = new ArrayList<>(operands.items());
+            Expression c = constantPart(operands.leaf());
+            for (Expression e : summands(operands.leaf().subtract(c))) {
+                pieces.add(Terms.of(e));
+            }
+            for (Expression e : op.pieces(c)) {
+                pieces.add(Terms.of(e));
+            }
+        }
         if (pieces.size() < k) {
             return;
         }
@@ -433,11 +539,12 @@ final class Matcher {
                 Term rest = allowRest && !groups.get(k).isEmpty() ? combine(op, groups.get(k)) : null;
                 out.add(new Match(x, rest));
             }
-            int i = 0;
-            while (i < choice.length && ++choice[i] == slots) {
-                choice[i++] = 0;
+            // The last piece's choice moves fastest, so earlier variables keep the earlier pieces longest.
+            int i = choice.length - 1;
+            while (i >= 0 && ++choice[i] == slots) {
+                choice[i--] = 0;
             }
-            if (i == choice.length) {
+            if (i < 0) {
                 return;
             }
         }
@@ -466,6 +573,26 @@ final class Matcher {
     }
 
     // ------------------------------------------------------------------ leaf pieces
+
+    /**
+     * The terms of a leaf in its canonical order: one per monomial of a polynomial coefficient, and
+     * a coefficient that is not a polynomial as one term.
+     */
+    static List<Expression> summands(Expression e) {
+        List<Expression> out = new ArrayList<>();
+        for (Map.Entry<Monomial, RationalFunction> t : e.terms().entrySet()) {
+            RationalFunction f = t.getValue();
+            if (!f.isPolynomial()) {
+                out.add(Expression.of(Map.of(t.getKey(), f)));
+                continue;
+            }
+            for (Polynomial.Term m : f.numerator().terms()) {
+                Polynomial one = Polynomial.monomial(m.coefficient(), m.exponents());
+                out.add(Expression.of(Map.of(t.getKey(), RationalFunction.of(one))));
+            }
+        }
+        return out;
+    }
 
     /** The constant term of a leaf whose value is a polynomial; zero for anything else. */
     static Expression constantPart(Expression e) {

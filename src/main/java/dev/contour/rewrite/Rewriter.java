@@ -1,5 +1,6 @@
 package dev.contour.rewrite;
 
+import dev.contour.ContourException;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.term.Term;
 import dev.contour.term.Terms;
@@ -74,7 +75,9 @@ public final class Rewriter {
                 if (last != most) {
                     out.append(", the last was '").append(last.name()).append("'");
                 }
-                out.append(": the rules may not terminate");
+                out.append(stopReason == StopReason.TIME_LIMIT
+                        ? ": the rules may not terminate, or the rewrite may simply be long; raise the limit with 'within N seconds'"
+                        : ": the rules may not terminate");
             }
             return out.toString();
         }
@@ -122,15 +125,20 @@ public final class Rewriter {
                     : n.term() instanceof Term.Leaf ? List.of() : rules.structural();
             for (Rule r : candidates) {
                 for (Matcher.Match m : Matcher.matches(r.left(), n.term())) {
-                    if (!r.admits(m.bindings())) {
-                        continue;
+                    Term after;
+                    try {
+                        if (!r.admits(m.bindings())) {
+                            continue;
+                        }
+                        Term replacement = r.right().instantiate(m.bindings());
+                        if (m.rest() != null) {
+                            replacement = r.left() instanceof Pattern.Sum ? new Term.Sum(List.of(replacement, m.rest()))
+                                    : new Term.Product(List.of(replacement, m.rest()));
+                        }
+                        after = Terms.expand(replaceAt(current, n.position(), 0, replacement));
+                    } catch (ContourException | ArithmeticException e) {
+                        throw failure(e, r);
                     }
-                    Term replacement = r.right().instantiate(m.bindings());
-                    if (m.rest() != null) {
-                        replacement = r.left() instanceof Pattern.Sum ? new Term.Sum(List.of(replacement, m.rest()))
-                                : new Term.Product(List.of(replacement, m.rest()));
-                    }
-                    Term after = Terms.expand(replaceAt(current, n.position(), 0, replacement));
                     if (!after.equals(current)) {
                         return new Step(r, n.position(), n.term(), current, after);
                     }
@@ -138,6 +146,12 @@ public final class Rewriter {
             }
         }
         return null;
+    }
+
+    /** An error raised while applying {@code r}, naming the rule and where it is written. */
+    private static ContourException failure(RuntimeException e, Rule r) {
+        String what = e instanceof ArithmeticException ? "an exact integer overflowed (" + e.getMessage() + ")" : e.getMessage();
+        return new ContourException(what + " while rewriting with rule '" + r.name() + "' (" + r.span() + ")", null, e);
     }
 
     /**

@@ -20,6 +20,9 @@ import java.util.Set;
 final class RuleCompiler {
     private static final java.util.regex.Pattern KEBAB = java.util.regex.Pattern.compile("[a-z][a-z0-9]*(-[a-z0-9]+)*");
 
+    /** Largest number a rule may write as a power of a number, in bits. */
+    private static final long MAX_LITERAL_BITS = 1_000_000;
+
     private final String ruleName;
 
     private RuleCompiler(String ruleName) {
@@ -239,6 +242,14 @@ final class RuleCompiler {
             if (parts.subList(0, i).contains(p)) {
                 throw error("a sum with two equal parts never occurs in the canonical form, which collects them", span);
             }
+            if (!(p instanceof Pattern.Literal)) {
+                for (Pattern q : parts.subList(0, i)) {
+                    if (!(q instanceof Pattern.Literal) && withoutCoefficient(q).equals(withoutCoefficient(p))) {
+                        throw error("the summands " + describe(q) + " and " + describe(p) + " differ only by a number, so they never "
+                                + "stand apart in the canonical form, which collects them into one; write the collected sum", span);
+                    }
+                }
+            }
         }
         if (literals > 1) {
             throw error("a sum with two numbers never occurs in the canonical form, which adds them; write their sum", span);
@@ -267,16 +278,63 @@ final class RuleCompiler {
         }
         if (left) {
             Set<Pattern> seen = new HashSet<>();
+            List<Pattern> bases = new ArrayList<>();
             for (Pattern f : rest) {
                 if (!seen.add(f)) {
                     throw error("a product with two equal factors never occurs in the canonical form, which writes a power", span);
                 }
+                Pattern base = f instanceof Pattern.Power w ? w.base() : f;
+                if (bases.contains(base)) {
+                    Pattern other = rest.stream().filter(g -> g != f && (g instanceof Pattern.Power w ? w.base() : g).equals(base))
+                            .findFirst().orElse(f);
+                    boolean opposite = Integer.signum(exponentOf(f)) != Integer.signum(exponentOf(other));
+                    throw error(opposite
+                            ? "the factor " + describe(base) + " is both in the numerator and in the denominator, which never occurs in "
+                            + "the canonical form: it cancels them"
+                            : "the factor " + describe(base) + " appears twice with different powers, which never occurs in the "
+                            + "canonical form: it adds the exponents", span);
+                }
+                bases.add(base);
                 if (f instanceof Pattern.Sum s && s.hasCall()) {
                     throw error("a product of a sum with calls in it never occurs in the canonical form, which multiplies it out", span);
                 }
             }
         }
         return rest.size() == 1 ? rest.get(0) : new Pattern.Product(rest);
+    }
+
+    private static int exponentOf(Pattern f) {
+        return f instanceof Pattern.Power w ? w.exponent() : 1;
+    }
+
+    /** A summand without its numeric coefficient: {@code 3*Gamma(@x)} and {@code -Gamma(@x)} are both {@code Gamma(@x)}. */
+    private static Pattern withoutCoefficient(Pattern p) {
+        if (p instanceof Pattern.Product q && q.factors().get(0) instanceof Pattern.Literal) {
+            List<Pattern> fs = q.factors().subList(1, q.factors().size());
+            return fs.size() == 1 ? fs.get(0) : new Pattern.Product(fs);
+        }
+        return p;
+    }
+
+    /** A pattern written out for a message. */
+    static String describe(Pattern p) {
+        if (p instanceof Pattern.Variable v) {
+            return "@" + v.name();
+        }
+        if (p instanceof Pattern.Literal l) {
+            return l.value().constantValue().toString();
+        }
+        if (p instanceof Pattern.Call c) {
+            return c.function() + "(" + String.join(", ", c.arguments().stream().map(RuleCompiler::describe).toList()) + ")";
+        }
+        if (p instanceof Pattern.Sum s) {
+            return "(" + String.join(" + ", s.parts().stream().map(RuleCompiler::describe).toList()) + ")";
+        }
+        if (p instanceof Pattern.Product q) {
+            return String.join("*", q.factors().stream().map(RuleCompiler::describe).toList());
+        }
+        Pattern.Power w = (Pattern.Power) p;
+        return describe(w.base()) + "^" + w.exponent();
     }
 
     private Pattern power(Pattern base, int e, boolean left, Span span) {
@@ -293,10 +351,20 @@ final class RuleCompiler {
             if (l.value().isZero() && e < 0) {
                 throw error("division by zero", span);
             }
+            Rational r = l.value().constantValue();
+            long bits = (long) Math.max(r.numerator().bitLength(), r.denominator().bitLength()) * Math.abs((long) e);
+            if (r.abs().compareTo(Rational.ONE) != 0 && !r.isZero() && bits > MAX_LITERAL_BITS) {
+                throw error("the number " + l.value() + "^" + e + " is too large (more than " + MAX_LITERAL_BITS + " bits)", span);
+            }
             return new Pattern.Literal(l.value().pow(e));
         }
         if (base instanceof Pattern.Power w) {
-            return power(w.base(), Math.multiplyExact(w.exponent(), e), left, span);
+            long product = (long) w.exponent() * e;
+            if (product != (int) product) {
+                throw error("the exponent " + w.exponent() + "*" + e + " is too large (exponents are at most "
+                        + Integer.MAX_VALUE + ")", span);
+            }
+            return power(w.base(), (int) product, left, span);
         }
         if (base instanceof Pattern.Product q) {
             List<Pattern> out = new ArrayList<>();
@@ -305,8 +373,8 @@ final class RuleCompiler {
             }
             return product(out, left, span);
         }
-        if (left && e > 0 && base instanceof Pattern.Sum s && s.hasCall()) {
-            throw error("a positive power of a sum with calls never occurs in the canonical form, which expands it", span);
+        if (left && e > 0 && base instanceof Pattern.Sum) {
+            throw error("a positive power of a sum never occurs in the canonical form, which expands it", span);
         }
         return new Pattern.Power(base, e);
     }

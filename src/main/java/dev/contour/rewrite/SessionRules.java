@@ -69,8 +69,13 @@ final class SessionRules implements RuleSink {
     }
 
     private static Rewriter.Result run(Expr e, RuleSet use, Limits limits, RuleContext context, Span span) {
-        Term start = InertTerms.of(e, context, use.functions());
-        Rewriter.Result r = Rewriter.normalize(start, use, limits);
+        Rewriter.Result r;
+        try {
+            Term start = InertTerms.of(e, context, use.functions());
+            r = Rewriter.normalize(start, use, limits);
+        } catch (ContourException x) {
+            throw x.at(span);
+        }
         if (!r.saturated()) {
             throw new ContourException(r.stopMessage(), span);
         }

@@ -142,19 +142,40 @@ public final class Terms {
 
         Key times(Key o) {
             Map<Term, Integer> m = new HashMap<>(atoms);
-            o.atoms.forEach((a, e) -> m.merge(a, e, Integer::sum));
+            o.atoms.forEach((a, e) -> m.merge(a, e, Terms::addExponents));
             m.values().removeIf(e -> e == 0);
             return new Key(m);
         }
 
         Key pow(int e) {
             Map<Term, Integer> m = new HashMap<>();
-            atoms.forEach((a, x) -> m.put(a, Math.multiplyExact(x, e)));
+            atoms.forEach((a, x) -> m.put(a, multiplyExponents(x, e)));
             return new Key(m);
         }
     }
 
     private static final Key RATIONAL = new Key(Map.of());
+
+    /** x + y for two exponents, failing clearly past the int range exponents are kept in. */
+    private static int addExponents(int x, int y) {
+        long r = (long) x + y;
+        if (r != (int) r) {
+            throw tooLarge(x + " + " + y);
+        }
+        return (int) r;
+    }
+
+    private static int multiplyExponents(int x, int y) {
+        long r = (long) x * y;
+        if (r != (int) r) {
+            throw tooLarge(x + "*" + y);
+        }
+        return (int) r;
+    }
+
+    private static ContourException tooLarge(String exponent) {
+        return new ContourException("the exponent " + exponent + " is too large (exponents are at most " + Integer.MAX_VALUE + ")");
+    }
 
     private static Map<Key, Expression> normalForm(Term t, boolean reduce) {
         if (t instanceof Term.Leaf l) {
@@ -335,14 +356,14 @@ public final class Terms {
             for (Map.Entry<Term, Integer> a : term.getKey().atoms().entrySet()) {
                 Term base = baseOf.get(a.getKey());
                 if (base == null) {
-                    atomsOut.merge(a.getKey(), a.getValue(), Integer::sum);
+                    atomsOut.merge(a.getKey(), a.getValue(), Terms::addExponents);
                     continue;
                 }
                 int shift = shiftOf.get(a.getKey());
                 if (shift != 0) {
                     coefficient = coefficient.multiply(pochhammer(argumentOf.get(base), shift).pow(a.getValue()));
                 }
-                atomsOut.merge(base, a.getValue(), Integer::sum);
+                atomsOut.merge(base, a.getValue(), Terms::addExponents);
             }
             atomsOut.values().removeIf(e -> e == 0);
             addInto(out, single(new Key(atomsOut), coefficient));

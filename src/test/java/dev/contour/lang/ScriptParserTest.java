@@ -124,6 +124,7 @@ class ScriptParserTest {
         assertEquals("expected an expression, found end of input", syntaxError("show 1 +").getMessage());
         assertEquals("expected a statement, found 'x'; to name a value write 'let x = ...'", syntaxError("x = 3").getMessage());
         assertTrue(syntaxError("vars s\ns + 1").getMessage().startsWith("expected a statement (vars, let"));
+        assertTrue(syntaxError("vars s\ns + 1").getMessage().contains(", rule, derive)"));
         assertEquals("'sum' is a keyword and cannot be used as a name", syntaxError("let sum = 3").getMessage());
         assertEquals("unexpected character '$'", syntaxError("show 3 $ 4").getMessage());
         ContourException unterminated = syntaxError("show \"abc");
