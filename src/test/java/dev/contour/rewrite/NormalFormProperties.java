@@ -12,7 +12,6 @@ import java.util.Map;
 import java.util.Random;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
-import org.junit.jupiter.api.Tag;
 import org.apfloat.Apcomplex;
 import org.apfloat.Apfloat;
 
@@ -52,7 +51,7 @@ class NormalFormProperties {
 
     /** Slow (apfloat's Gamma at 40 digits, many per derivation); {@link RuleNumericsTest} covers every rule quickly. */
     @Property(tries = 25)
-    @Tag("slow")
+    @net.jqwik.api.Tag("slow")
     void everyStepKeepsTheValueTo30Digits(@ForAll long termSeed) {
         String text = new RandomTerms(termSeed).term();
         Rewriter.Result r = normalize(TestTerms.term(text), BUNDLED);
