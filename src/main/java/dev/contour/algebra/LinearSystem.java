@@ -16,7 +16,7 @@ import java.util.TreeMap;
  * a small set of conflicting tags. Elimination is incremental Gauss-Jordan over exact rationals on
  * sparse rows (the pivot of a new row is its lowest remaining column); each working row records
  * which input rows it was combined from, which yields the conflicting tags, then pruned by a
- * deletion pass when the set is small.
+ * deletion pass when the set is small. {@link #solve()} gets the same result multi-modularly.
  */
 public final class LinearSystem {
     private static final int PRUNE_LIMIT = 32;
@@ -85,8 +85,19 @@ public final class LinearSystem {
         }
     }
 
-    /** Solves exactly (incremental Gauss-Jordan elimination over Q). */
+    /**
+     * Solves exactly. The result is the one of {@link #solveExact()} (reduced row echelon form with
+     * lowest-column pivots); it is computed multi-modularly and verified over Q by
+     * {@link ModularLinearSolver}. Only when a prime reports an inconsistency does the exact path run,
+     * which confirms it (or, for an unlucky prime, returns the solution) and yields the conflicting tags.
+     */
     public Solution solve() {
+        Solution s = ModularLinearSolver.solve(columns, rowCoefficients, rowRhs);
+        return s != null ? s : solveExact();
+    }
+
+    /** The reference path: incremental Gauss-Jordan elimination over Q (slow at scale: rational fill-in). */
+    Solution solveExact() {
         List<Integer> all = new ArrayList<>();
         for (int i = 0; i < rows(); i++) {
             all.add(i);
