@@ -84,10 +84,13 @@ arith
     ;
 
 argument
-    : IDENT ':' expr         # namedArgument
+    : argumentName ':' expr  # namedArgument
     | IDENT 'in' arith       # domainArgument
     | expr                   # plainArgument
     ;
+
+// A named argument may be called 'within' (a time limit, as in a derivation's within clause).
+argumentName : IDENT | 'within' ;
 
 primary
     : NUMBER                                   # numberPrimary

@@ -270,7 +270,7 @@ public final class ScriptParser {
     private Expr.Argument argument(ArgumentContext a) {
         Span span = span(a);
         if (a instanceof NamedArgumentContext n) {
-            return new Expr.Argument(Expr.ArgumentKind.NAMED, n.IDENT().getText(), expr(n.expr()), span);
+            return new Expr.Argument(Expr.ArgumentKind.NAMED, n.argumentName().getText(), expr(n.expr()), span);
         }
         if (a instanceof DomainArgumentContext d) {
             return new Expr.Argument(Expr.ArgumentKind.DOMAIN, d.IDENT().getText(), arith(d.arith()), span);

@@ -192,7 +192,8 @@ public record NumberValue(NumericResult result, boolean showError, String note) 
             throw new IllegalStateException("an exact result is not a number value");
         }
         double err = Double.isInfinite(log10Error) || Double.isNaN(log10Error) ? Magnitudes.log10Abs(v) - digits - 1 : log10Error;
-        return NumberValue.of(new NumericResult(v, digits, Magnitudes.pow10(err)), digits, showError);
+        // With no digit left (full cancellation) only the error says anything: show it.
+        return NumberValue.of(new NumericResult(v, digits, Magnitudes.pow10(err)), digits, showError || digits == 0);
     }
 
     @Override
