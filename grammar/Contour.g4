@@ -89,9 +89,10 @@ argument
     | expr                   # plainArgument
     ;
 
-// A named argument's name may be the word 'by' (partial_fractions(M, s, by: {sigma, tau})): before ':'
-// it cannot start an expression, so reading it as a name is unambiguous.
-argumentName : IDENT | 'by' ;
+// A named argument's name may be one of the words 'by' (partial_fractions(M, s, by: {sigma, tau}))
+// or 'within' (a time limit, as in a derivation's within clause): before ':' neither can start an
+// expression, so reading it as a name is unambiguous.
+argumentName : IDENT | 'by' | 'within' ;
 
 primary
     : NUMBER                                   # numberPrimary

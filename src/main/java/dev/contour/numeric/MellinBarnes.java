@@ -447,7 +447,8 @@ public final class MellinBarnes {
             }
             if ((n & 63) == 0) {
                 if (progress.elapsedNanos() > limits.timeLimit().toNanos()) {
-                    throw notReached("within the time limit of " + limits.timeLimit().toSeconds() + " s");
+                    throw notReached("within the time limit of "
+                            + java.math.BigDecimal.valueOf(limits.timeLimit().toMillis(), 3).stripTrailingZeros().toPlainString() + " s");
                 }
                 synchronized (progress) {
                     progress.update(() -> String.format("mellin-barnes %s: step %s, %,d evaluations%s",

@@ -7,7 +7,9 @@ import org.apfloat.Apfloat;
 
 /**
  * The numerics benchmark: the box function at z = 0.3 + 0.2i to 15 digits as a two-variable
- * Mellin-Barnes integral, timed, with the closed form beside it. {@code contour bench} calls
+ * Mellin-Barnes integral, timed, with the closed form beside it: once with the hand-written integrand
+ * of {@link BoxFunction} and once as users run it, a script with {@code position_value} through the
+ * interpreter (the generic measure integrand). {@code contour bench} calls
  * {@link #runBench(PrintStream)}; figures are printed, never asserted on time.
  */
 public final class NumericBench {
@@ -21,6 +23,47 @@ public final class NumericBench {
         double agreementDigits() {
             return -integral.log10RelativeDistance(closedForm.value());
         }
+    }
+
+    /** The box function as a user writes it (the measure in the language, U and V of z = 0.3 + 0.2i). */
+    static final String SCRIPT = """
+            vars s, t
+            let box = mellin_measure(gamma: {{-s, 2}, {-t, 2}, {1 + s + t, 2}}, kernel: {s, t})
+            show 4*position_value(1, box, z: complex(3/10, 1/5), zbar: complex(3/10, -1/5), contour: {-1/3, -1/3}, digits: %d)
+            """.formatted(DIGITS);
+
+    /** What the script run measured: its printed line and times. */
+    record ScriptFigures(String line, NumberValue value, double seconds, double cpuSeconds) { }
+
+    /** Runs {@link #SCRIPT} through the interpreter, timed. */
+    static ScriptFigures measureScript() {
+        java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
+        PrintStream out = new PrintStream(bytes, true, java.nio.charset.StandardCharsets.UTF_8);
+        dev.contour.eval.Interpreter interpreter = new dev.contour.eval.Interpreter(dev.contour.eval.InterpreterOptions.to(out));
+        long cpu0 = processCpuNanos();
+        long t0 = System.nanoTime();
+        interpreter.run(SCRIPT, "bench-box.ctr");
+        long t1 = System.nanoTime();
+        long cpu1 = processCpuNanos();
+        String line = bytes.toString(java.nio.charset.StandardCharsets.UTF_8).strip();
+        String tail = line.substring(line.lastIndexOf(" = ") + 3);
+        String number = tail.substring(0, tail.indexOf(" ("));
+        int digits = Integer.parseInt(tail.substring(tail.indexOf(" (") + 2, tail.indexOf(" digits")));
+        Apcomplex v = parseComplex(number, digits);
+        NumberValue value = new NumberValue(new NumericResult(v, digits, Apfloat.ZERO), false);
+        return new ScriptFigures(line, value, (t1 - t0) / 1e9, (cpu1 - cpu0) / 1e9);
+    }
+
+    /** {@code a}, {@code a + b i} or {@code a - b i} as printed. */
+    static Apcomplex parseComplex(String text, int digits) {
+        String t = text.strip();
+        if (!t.endsWith(" i")) {
+            return new Apfloat(t, digits + 5);
+        }
+        int sep = Math.max(t.lastIndexOf(" + "), t.lastIndexOf(" - "));
+        Apfloat re = new Apfloat(t.substring(0, sep), digits + 5);
+        Apfloat im = new Apfloat(t.substring(sep + 3, t.length() - 2), digits + 5);
+        return new Apcomplex(re, t.charAt(sep + 1) == '-' ? im.negate() : im);
     }
 
     static Figures measure() {
@@ -61,6 +104,10 @@ public final class NumericBench {
         out.printf("  Mellin-Barnes integral       %s   %.2f s wall, %.2f s CPU, %,d integrand evaluations%n",
                 m.integral(), m.integralSeconds(), m.integralCpuSeconds(), m.evaluations());
         out.printf("  agreement                    %.1f digits%n", m.agreementDigits());
+        ScriptFigures sf = measureScript();
+        out.printf("  script (position_value)      %s   %.2f s wall, %.2f s CPU%n", sf.value().digitsText(), sf.seconds(), sf.cpuSeconds());
+        out.printf("  script agreement             %.1f digits; script / hand-written integrand time %.2f%n",
+                -sf.value().result().log10RelativeDistance(m.closedForm().value()), sf.seconds() / m.integralSeconds());
     }
 
     public static void main(String[] args) {

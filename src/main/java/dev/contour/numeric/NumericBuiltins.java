@@ -3,7 +3,6 @@ package dev.contour.numeric;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
-import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.eval.Arguments;
@@ -20,7 +19,6 @@ import dev.contour.mellin.MeasureValue;
 import dev.contour.mellin.MellinMeasure;
 import dev.contour.term.Term;
 import dev.contour.term.Terms;
-import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -49,9 +47,38 @@ public final class NumericBuiltins implements BuiltinProvider {
         r.register(new Builtin("value", 1, 1, Set.of("digits", "point"), false,
                 "value(Gamma(1/3), digits: 30): a closed expression to 30 significant digits; point: {z, complex(1, 1)} sets variables",
                 NumericBuiltins::value));
-        r.register(new Builtin("position_value", 2, 2, Set.of("U", "V", "contour", "digits"), false,
-                "position_value(M, m, U: 1/4, V: 1/2, contour: {-1/2, -1/2}, digits: 15): int ds/2 dt/2/(2 pi i)^2 U^.. V^.. M Gamma_m",
+        r.register(Builtin.of(POLYLOG, 2, "polylog(2, x): the polylogarithm Li_n(x) of integer order n, kept exact; value(...) evaluates it",
+                NumericBuiltins::polylog));
+        r.register(new Builtin("position_value", 2, 2, Set.of("U", "V", "z", "zbar", "contour", "digits", "within"), false,
+                "position_value(M, m, U: 1/4, V: 1/2, contour: {-1/2, -1/2}, digits: 15, within: 60): int ds/2 dt/2/(2 pi i)^2 U^.. V^.. M Gamma_m;"
+                        + " z:, zbar: for U = z zbar, V = (1 - z)(1 - zbar); without contour: a separating one is chosen; within: seconds",
                 NumericBuiltins::positionValue));
+    }
+
+    /** The name of the polylogarithm as a term function. */
+    public static final String POLYLOG = "polylog";
+
+    /** polylog(n, x): an exact term (numbers only through value); Li_n(0) = 0. */
+    private static Value polylog(Arguments a, Span span) {
+        int n = Values.integer(a.get(0), a.spanOf(0), "polylog: the order");
+        Value x = a.get(1);
+        Term arg;
+        if (x instanceof ExprValue e) {
+            if (e.value().isZero()) {
+                return new ExprValue(Expression.constant(0));
+            }
+            arg = new Term.Leaf(e.value());
+        } else if (x instanceof TermValue tv) {
+            arg = tv.value();
+        } else {
+            throw new ContourException("polylog: the argument must be an expression (use point: for a complex x), not a "
+                    + x.kind(), a.spanOf(1));
+        }
+        try {
+            return dev.contour.eval.Arithmetic.fromTerm(new Term.Apply(POLYLOG, List.of(new Term.Leaf(Expression.constant(n)), arg)));
+        } catch (ContourException e) {
+            throw e.at(span);
+        }
     }
 
     private static Value complex(Arguments a, Span span) {
@@ -115,10 +142,30 @@ public final class NumericBuiltins implements BuiltinProvider {
         MellinMeasure m = mv.measure();
         String s = m.s();
         String t = m.t();
-        Arguments.Argument uArg = required(a, "U", span);
+        // The point: U (and V), or z and zbar with U = z zbar, V = (1 - z)(1 - zbar).
+        Optional<Arguments.Argument> uArg = a.named("U");
         Optional<Arguments.Argument> vArg = a.named("V");
-        Arguments.Argument cArg = required(a, "contour", span);
-        boolean twoVariables = vArg.isPresent();
+        Optional<Arguments.Argument> zArg = a.named("z");
+        Optional<Arguments.Argument> zbArg = a.named("zbar");
+        ComplexValue u0;
+        ComplexValue v0;
+        if (zArg.isPresent() || zbArg.isPresent()) {
+            if (uArg.isPresent() || vArg.isPresent()) {
+                Arguments.Argument second = (uArg.isPresent() ? uArg : vArg).get();
+                throw new ContourException("position_value: give the point either as U:, V: or as z:, zbar:, not both", second.span());
+            }
+            Arguments.Argument z = required(a, "z", span);
+            Arguments.Argument zb = required(a, "zbar", span);
+            ComplexValue zv = complexOf(z.value(), z.span(), "position_value: z");
+            ComplexValue zbv = complexOf(zb.value(), zb.span(), "position_value: zbar");
+            u0 = times(zv, zbv);
+            v0 = times(oneMinus(zv), oneMinus(zbv));
+        } else {
+            Arguments.Argument ua = required(a, "U", span);
+            u0 = complexOf(ua.value(), ua.span(), "position_value: U");
+            v0 = vArg.isPresent() ? complexOf(vArg.get().value(), vArg.get().span(), "position_value: V") : null;
+        }
+        boolean twoVariables = v0 != null;
         Set<String> allowed = twoVariables ? Set.of(s, t) : Set.of(s);
         String variablesText = twoVariables ? s + " and " + t : s + " (without V: the one-variable integral)";
 
@@ -135,53 +182,59 @@ public final class NumericBuiltins implements BuiltinProvider {
         if (twoVariables) {
             requireOnly(m.vOffset().variables(), Set.of(), a.spanOf(1), "the kernel exponent of V", "numbers");
         }
-        List<Value> contour = cArg.value() instanceof ListValue l ? l.items() : List.of(cArg.value());
-        if (contour.size() != (twoVariables ? 2 : 1)) {
-            throw new ContourException("position_value: contour is " + (twoVariables ? "{Re " + s + ", Re " + t + "}" : "{Re " + s + "}")
-                    + ", got " + contour.size() + " number" + (contour.size() == 1 ? "" : "s"), cArg.span());
+        Optional<Arguments.Argument> cArg = a.named("contour");
+        Rational cs;
+        Rational ct;
+        String chosen = null;
+        if (cArg.isPresent()) {
+            List<Value> contour = cArg.get().value() instanceof ListValue l ? l.items() : List.of(cArg.get().value());
+            if (contour.size() != (twoVariables ? 2 : 1)) {
+                throw new ContourException("position_value: contour is " + (twoVariables ? "{Re " + s + ", Re " + t + "}" : "{Re " + s + "}")
+                        + ", got " + contour.size() + " number" + (contour.size() == 1 ? "" : "s"), cArg.get().span());
+            }
+            cs = Values.rational(contour.get(0), cArg.get().span(), "position_value: the contour");
+            ct = twoVariables ? Values.rational(contour.get(1), cArg.get().span(), "position_value: the contour") : null;
+        } else {
+            Rational[] c = at(a.spanOf(1), () -> ContourChoice.choose(m.factors(), s, twoVariables ? t : null));
+            cs = c[0];
+            ct = twoVariables ? c[1] : null;
+            chosen = "contour {" + cs + (twoVariables ? ", " + ct : "") + "} chosen";
         }
-        Rational cs = Values.rational(contour.get(0), cArg.span(), "position_value: the contour");
-        Rational ct = twoVariables ? Values.rational(contour.get(1), cArg.span(), "position_value: the contour") : null;
-        ComplexValue u0 = complexOf(uArg.value(), uArg.span(), "position_value: U");
-        ComplexValue v0 = twoVariables ? complexOf(vArg.get().value(), vArg.get().span(), "position_value: V") : null;
+        IntegrationLimits limits = IntegrationLimits.defaults();
+        Optional<Arguments.Argument> within = a.named("within");
+        if (within.isPresent()) {
+            Rational seconds = Values.rational(within.get().value(), within.get().span(), "position_value: within (seconds)");
+            if (seconds.signum() <= 0) {
+                throw new ContourException("position_value: within is a positive number of seconds, got " + seconds, within.get().span());
+            }
+            Rational ms = seconds.multiply(Rational.of(1000));
+            limits = limits.withTimeLimit(java.time.Duration.ofMillis(Math.max(1, ms.numerator().divide(ms.denominator()).longValue())));
+        }
+        IntegrationLimits bounds = limits;
 
         long wp = MellinBarnes.workingPrecision(digits) + 5;
+        long gammaPrecision = MellinBarnes.workingPrecision(digits);
         Apcomplex u = u0.at(wp);
-        Polynomial uExp = m.uExponent();
-        Polynomial vExp = m.vExponent();
         Apcomplex half = new Apcomplex(new org.apfloat.Apfloat(1, wp)).divide(new Apint(2));
         NumericResult r = at(span, () -> {
             if (twoVariables) {
-                Apcomplex v = v0.at(wp);
-                Integrand2 f = (sv, tv) -> {
-                    Map<String, Apcomplex> x = Map.of(s, sv, t, tv);
-                    long p = wp;
-                    Apcomplex g = gammas(m, x, p);
-                    return ComplexFunctions.power(u, PointEvaluation.polynomialAt(uExp, x, p))
-                            .multiply(ComplexFunctions.power(v, PointEvaluation.polynomialAt(vExp, x, p)))
-                            .multiply(PointEvaluation.rationalFunctionAt(amplitude, x, p)).multiply(g);
-                };
-                return scaled(MellinBarnes.integrate2(f, PointEvaluation.rational(cs, wp), PointEvaluation.rational(ct, wp), digits),
+                MeasureIntegrand f = new MeasureIntegrand(m, amplitude, u, v0.at(wp), gammaPrecision);
+                return scaled(MellinBarnes.integrate2(f, PointEvaluation.rational(cs, wp), PointEvaluation.rational(ct, wp), digits, bounds),
                         half.multiply(half));
             }
-            Integrand1 f = sv -> {
-                Map<String, Apcomplex> x = Map.of(s, sv);
-                long p = wp;
-                return ComplexFunctions.power(u, PointEvaluation.polynomialAt(uExp, x, p))
-                        .multiply(PointEvaluation.rationalFunctionAt(amplitude, x, p)).multiply(gammas(m, x, p));
-            };
-            return scaled(MellinBarnes.integrate1(f, PointEvaluation.rational(cs, wp), digits), half);
+            MeasureIntegrand f = new MeasureIntegrand(m, amplitude, u, null, gammaPrecision);
+            return scaled(MellinBarnes.integrate1(f, PointEvaluation.rational(cs, wp), digits, bounds), half);
         });
-        return NumberValue.of(r, digits, true);
+        return NumberValue.of(r, digits, true).withNote(chosen);
     }
 
-    /** The measure's Gamma factors at the point. */
-    private static Apcomplex gammas(MellinMeasure m, Map<String, Apcomplex> x, long p) {
-        Apcomplex g = Apcomplex.ONE;
-        for (GammaPower f : m.factors()) {
-            g = g.multiply(ApcomplexMath.pow(ComplexFunctions.gamma(PointEvaluation.polynomialAt(f.argument(), x, p)), f.exponent()));
-        }
-        return g;
+    private static ComplexValue times(ComplexValue x, ComplexValue y) {
+        return new ComplexValue(x.re().multiply(y.re()).subtract(x.im().multiply(y.im())),
+                x.re().multiply(y.im()).add(x.im().multiply(y.re())));
+    }
+
+    private static ComplexValue oneMinus(ComplexValue x) {
+        return new ComplexValue(Rational.ONE.subtract(x.re()), x.im().negate());
     }
 
     /** The result times an exact factor (1/2 or 1/4): the digits claim and the relative error are unchanged. */
@@ -305,6 +358,14 @@ public final class NumericBuiltins implements BuiltinProvider {
                     }
                     return ComplexFunctions.gamma(x.add(one), precision).divide(ComplexFunctions.gamma(k.add(one), precision)
                             .multiply(ComplexFunctions.gamma(x.subtract(k).add(one), precision)));
+                }
+                case POLYLOG: {
+                    // Li_n(x), n an integer, principal branch (cut along [1, infinity)).
+                    Apcomplex x2 = value(a.arguments().get(1));
+                    if (!x.isInteger() || Math.abs(x.real().doubleValue()) > 1000) {
+                        throw new ContourException("value: polylog needs an integer order, got " + x);
+                    }
+                    return ComplexFunctions.polylog(x.real().intValue(), x2, precision);
                 }
                 default:
                     throw new ContourException("value: no numerical value is known for the function '" + a.function() + "'");

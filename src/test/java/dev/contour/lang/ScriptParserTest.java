@@ -120,6 +120,15 @@ class ScriptParserTest {
     }
 
     @Test
+    void withinMayNameAnArgumentButNotAValue() {
+        // position_value(..., within: 30): the derivation keyword doubles as the name of a time limit.
+        Expr.Call call = assertInstanceOf(Expr.Call.class, expr("f(x, within: 30)"));
+        assertEquals(Expr.ArgumentKind.NAMED, call.arguments().get(1).kind());
+        assertEquals("within", call.arguments().get(1).name());
+        assertEquals("'within' is a keyword and cannot be used as a name", syntaxError("let within = 3").getMessage());
+    }
+
+    @Test
     void otherSyntaxErrorsSayWhatWasExpected() {
         assertEquals("expected an expression, found end of input", syntaxError("show 1 +").getMessage());
         assertEquals("expected a statement, found 'x'; to name a value write 'let x = ...'", syntaxError("x = 3").getMessage());

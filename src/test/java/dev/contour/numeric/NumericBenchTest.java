@@ -18,5 +18,11 @@ class NumericBenchTest {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363.
         assertTrue(m.integral().digits() >= NumericBench.DIGITS, m.integral()::toString);
         assertTrue(m.agreementDigits() >= m.integral().digits() - 0.5, () -> m.agreementDigits() + " digits agree");
+        // The same number as users compute it: the measure written in a script, through the interpreter.
+        NumericBench.ScriptFigures sf = NumericBench.measureScript();
+        System.out.printf("numeric bench: script path %s in %.2f s wall, %.2f s CPU (%.2f times the hand-written integrand)%n",
+                sf.value().digitsText(), sf.seconds(), sf.cpuSeconds(), sf.seconds() / m.integralSeconds());
+        assertTrue(sf.value().result().digits() >= NumericBench.DIGITS, sf::line);
+        assertTrue(-sf.value().result().log10RelativeDistance(m.closedForm().value()) >= NumericBench.DIGITS - 0.5, sf::line);
     }
 }

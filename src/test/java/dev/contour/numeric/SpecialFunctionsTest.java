@@ -120,7 +120,7 @@ class SpecialFunctionsTest {
     void dilogarithmSpecialValues() {
         Apfloat pi = ApfloatMath.pi(60);
         Apfloat ln2 = ApfloatMath.log(new Apfloat(2, 60));
-        // NIST DLMF 25.12.E? (section 25.12(i); equation number not checked, value from memory):
+        // NIST DLMF 25.12.6, the reflection formula, at z = 1/2 (equation number from memory):
         // Li2(1/2) = pi^2/12 - (ln 2)^2 / 2.
         Apfloat half = pi.multiply(pi).divide(new Apint(12)).subtract(ln2.multiply(ln2).divide(new Apint(2)));
         assertAccurate(half, SpecialFunctions.dilog(new Apfloat("0.5"), 30), 30);
