@@ -17,6 +17,15 @@ import static org.junit.jupiter.api.Assertions.*;
 
 /** The mellin built-ins and rules/ads5s5.ctr driven through the language. */
 class MellinScriptTest {
+    /** The p = 3 all-ones reduced ansatz and its full amplitude, through the rule library. */
+    private static final String P3_ALL_ONES = """
+                use "ads5s5.ctr"
+                let p = 3
+                let Mred = (sum i, j, k with i + j + k = p - 2 :
+                    sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
+                let M = ward(p)(Mred)
+                """;
+
     private final ByteArrayOutputStream bytes = new ByteArrayOutputStream();
 
     private RunResult run(String script, OutputFormat format) {
@@ -296,12 +305,7 @@ class MellinScriptTest {
     void theCyclicCrossingComposesTheTwoSwapsInTheLanguage() {
         // arXiv:1608.06624 (physics-reference section 4): the p = 2 and p = 3 amplitudes are crossing symmetric, so
         // the composite of 1<->2 and 1<->3 fixes them; the composite is a 3-cycle, so its cube is the identity.
-        String script = """
-                use "ads5s5.ctr"
-                let p = 3
-                let Mred = (sum i, j, k with i + j + k = p - 2 :
-                    sigma^i * tau^j / ((s - 2*p + 2 + 2*k) * (t - 2*p + 2 + 2*j) * (utilde - 2*p + 2 + 2*i))) at (utilde = 4*p - 4 - s - t)
-                let M = ward(p)(Mred)
+        String script = P3_ALL_ONES + """
                 check cross_cyclic(p)(M) == M
                 check cross_cyclic_reduced(p)(Mred) == Mred
                 let M2 = ward(2)(1/((s - 2)*(t - 2)*(2 - s - t)))
