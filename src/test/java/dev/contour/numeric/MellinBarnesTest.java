@@ -15,7 +15,6 @@ import org.apfloat.Apfloat;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.DoubleRange;
-import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 class MellinBarnesTest {
@@ -116,7 +115,6 @@ class MellinBarnesTest {
     }
 
     @Test
-    @Tag("slow")
     void boxFunctionToFifteenDigitsAtThreePoints() {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363. The reference value at
         // z = 0.3 + 0.2i is from physics-reference.md section 5; both sides must match it to 15 digits.

@@ -8,7 +8,6 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import org.apfloat.Apfloat;
 import org.apfloat.ApfloatMath;
-import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 import static org.junit.jupiter.api.Assertions.*;
@@ -100,7 +99,6 @@ class NumericScriptTest {
     }
 
     @Test
-    @Tag("slow")
     void boxFunctionToFifteenDigits() {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363; value 5.1976430145400815451 at
         // z = 0.3 + 0.2i from physics-reference.md section 5 (good to 16 digits, see MellinBarnesTest).
