@@ -42,7 +42,7 @@ class FuzzProperties {
         return Arbitraries.of(TOKENS).list().ofMaxSize(40).map(ts -> String.join(" ", ts));
     }
 
-    @Property(tries = 200)
+    @Property(tries = 600)
     void randomTokenStreamsFailOnlyWithContourException(@ForAll("tokenStreams") String text) {
         runExpectingOnlyContourErrors(text, "fuzz.ctr");
         runExpectingOnlyContourErrors(PRELUDE + text, "fuzz.ctr");
@@ -69,7 +69,7 @@ class FuzzProperties {
         });
     }
 
-    @Property(tries = 150)
+    @Property(tries = 450)
     void mutatedExamplesFailOnlyWithContourException(@ForAll("mutatedExamples") String[] fileAndText) {
         runExpectingOnlyContourErrors(fileAndText[1], fileAndText[0]);
     }
@@ -95,7 +95,10 @@ class FuzzProperties {
         try {
             interpreter.run(text, file);
         } catch (ContourException expected) {
-            // bad input, reported the way users see it
+            // bad input, reported the way users see it: with the place it arose (file:line:column)
+            if (expected.span() == null) {
+                fail("an error without a location (" + expected.getMessage() + ") for input:\n" + text);
+            }
         } catch (RuntimeException | StackOverflowError e) {
             fail("not a ContourException for input:\n" + text, e);
         }
