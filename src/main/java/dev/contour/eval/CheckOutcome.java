@@ -25,6 +25,20 @@ public record CheckOutcome(boolean holds, Value left, Value right, Monomial firs
     private static final long SEED = 0x5eed_c0de_2026L;
 
     static CheckOutcome compare(Value left, Value right, Span span, EvaluationLimits limits) {
+        if (left instanceof ListValue a && right instanceof ListValue b) {
+            // Lists are equal when they have the same length and equal items in order; a failure
+            // reports the first differing item.
+            if (a.items().size() != b.items().size()) {
+                return new CheckOutcome(false, left, right, null, null, null, null, null, null);
+            }
+            for (int i = 0; i < a.items().size(); i++) {
+                CheckOutcome item = compare(a.items().get(i), b.items().get(i), span, limits);
+                if (!item.holds()) {
+                    return item;
+                }
+            }
+            return new CheckOutcome(true, left, right, null, null, null, null, null, null);
+        }
         Value difference = Arithmetic.binary(Expr.Operator.SUBTRACT, left, right, span, limits);
         Boolean zero = Arithmetic.isZero(difference);
         if (zero == null) {

@@ -74,6 +74,14 @@ class InterpreterTest {
     }
 
     @Test
+    void listsAreComparedItemByItem() {
+        String out = Scripts.output("vars s, t\ncheck {1, s} == {1, s}\ncheck {1, s} == {1, t}\ncheck {1} == {1, 2}");
+        assertTrue(out.startsWith("check {1, s} == {1, s}  ok\ncheck {1, s} == {1, t}  FAILED (line 3)\n"
+                + "    first difference, in the coefficient of 1:\n        left   s\n        right  t\n"), out);
+        assertTrue(out.endsWith("check {1} == {1, 2}  FAILED (line 4)\n    left   {1}\n    right  {1, 2}\n"), out);
+    }
+
+    @Test
     void aParameterNamedTwiceIsAnError() {
         ContourException e = error("vars s\ndef f(a, a) = a + s");
         assertEquals("the parameter 'a' of f is named twice", e.getMessage());
