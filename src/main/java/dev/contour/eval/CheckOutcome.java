@@ -41,6 +41,9 @@ public record CheckOutcome(boolean holds, Value left, Value right, Monomial firs
         }
         Value difference = Arithmetic.binary(Expr.Operator.SUBTRACT, left, right, span, limits);
         Boolean zero = Arithmetic.isZero(difference);
+        if (Boolean.FALSE.equals(zero) && difference instanceof OperandValue o) {
+            zero = o.isZeroToItsPrecision();
+        }
         if (zero == null) {
             throw new ContourException("cannot compare " + Values.describe(left) + " with " + Values.describe(right), span);
         }

@@ -16,4 +16,13 @@ public interface OperandValue extends Value {
 
     /** True when the value is zero (used by {@code check}). */
     boolean isZero();
+
+    /**
+     * True when the value is zero to the precision it claims: for exact kinds, exactly zero; for a
+     * number known to some digits, when its magnitude is within its error bound. {@code check}
+     * decides with this, so two numbers are equal when they agree to their stated precision.
+     */
+    default boolean isZeroToItsPrecision() {
+        return isZero();
+    }
 }

@@ -206,4 +206,13 @@ public record NumberValue(NumericResult result, boolean showError, String note) 
     public boolean isZero() {
         return result.value().isZero();
     }
+
+    /** Zero when the value lies within its own (absolute) error bound: no claimed digit survives. */
+    @Override
+    public boolean isZeroToItsPrecision() {
+        if (result.value().isZero()) {
+            return true;
+        }
+        return Magnitudes.log10Abs(result.value()) <= Magnitudes.log10Abs(result.errorEstimate());
+    }
 }

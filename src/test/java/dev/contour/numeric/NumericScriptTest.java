@@ -6,6 +6,7 @@ import dev.contour.eval.InterpreterOptions;
 import java.io.ByteArrayOutputStream;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
+import java.util.List;
 import org.apfloat.Apfloat;
 import org.apfloat.ApfloatMath;
 import org.junit.jupiter.api.Test;
@@ -80,6 +81,24 @@ class NumericScriptTest {
     }
 
     /** The box function of physics-reference section 5 with the measure written in the language. */
+    @Test
+    void checkComparesNumbersToTheirStatedPrecision() {
+        // Li2(1) = pi^2/6 (DLMF section 25.12) and Gamma(1/2) = sqrt(pi) (DLMF section 5.4); from memory.
+        String out = run("""
+                check value(polylog(2, 1), digits: 20) == value(Gamma(1/2)^4/6, digits: 20)
+                check value(polylog(2, 1), digits: 10) == value(Gamma(1/2)^4/6 + 1/10^15, digits: 10)
+                check value(Gamma(3), digits: 10) == 2
+                check value(polylog(2, 1), digits: 20) == value(Gamma(1/2)^4/6 + 1/10^15, digits: 20)
+                """);
+        List<String> lines = out.lines().toList();
+        assertEquals("check value(polylog(2, 1), digits: 20) == value(Gamma(1/2)^4/6, digits: 20)  ok", lines.get(0));
+        // 10^-15 apart: equal to 10 digits, different to 20
+        assertTrue(lines.get(1).endsWith("  ok"), out);
+        assertTrue(lines.get(2).endsWith("  ok"), out);
+        assertTrue(lines.get(3).endsWith("  FAILED (line 4)"), out);
+        assertTrue(lines.get(4).contains("1.6449340668482264365 (20 digits)"), out);
+    }
+
     private Apfloat box(int digits) {
         String out = run("""
                 vars s, t
