@@ -61,7 +61,7 @@ final class ModularGcd {
         int degree = Integer.MAX_VALUE;
         long p = (1L << 31) - 1;
         for (int prime = 0; prime < MAX_PRIMES; prime++) {
-            p = previousPrime(p);
+            p = ModularPoly.previousPrime(p);
             long[] ca = residues(a.coeffs, p);
             long[] cb = residues(b.coeffs, p);
             long[] cg = residues(gamma.coeffs, p);
@@ -140,14 +140,6 @@ final class ModularGcd {
             out[i] = c[i].isSmall() ? Math.floorMod(c[i].longNum(), p) : c[i].numerator().mod(bp).longValue();
         }
         return out;
-    }
-
-    private static long previousPrime(long p) {
-        long q = p - 1;
-        while (!BigInteger.valueOf(q).isProbablePrime(30)) {
-            q--;
-        }
-        return q;
     }
 
     private static long[] distinctPoints(int n, long p, Random rnd) {

@@ -154,7 +154,7 @@ final class ModularLinearSolver {
         double modBits = 0;
         long p = PRIME_BOUND;
         while (true) {
-            p = previousPrime(p);
+            p = ModularPoly.previousPrime(p);
             Image img = image(p);
             if (img == null) {
                 return null;
@@ -411,26 +411,6 @@ final class ModularLinearSolver {
         }
         return new LinearSystem.Family(Collections.unmodifiableList(particular), Collections.unmodifiableList(freeList),
                 Collections.unmodifiableList(basis), r);
-    }
-
-    private static long previousPrime(long p) {
-        long q = p - 1;
-        while (!isPrime(q)) {
-            q--;
-        }
-        return q;
-    }
-
-    private static boolean isPrime(long q) {
-        if (q < 2 || q % 2 == 0) {
-            return q == 2;
-        }
-        for (long d = 3; d * d <= q; d += 2) {
-            if (q % d == 0) {
-                return false;
-            }
-        }
-        return true;
     }
 
     private long residue(int i, int j, long p) {

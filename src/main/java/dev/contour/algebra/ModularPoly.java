@@ -21,6 +21,68 @@ final class ModularPoly {
         return n == f.length ? f : Arrays.copyOf(f, n);
     }
 
+    /** The largest prime below p (p at most 2^31): shared by the modular GCD and the modular linear solver. */
+    static long previousPrime(long p) {
+        if (p > (1L << 31)) {
+            throw new IllegalArgumentException("previousPrime is for moduli up to 2^31, got " + p);
+        }
+        long q = p - 1;
+        while (!isPrime(q)) {
+            q--;
+        }
+        return q;
+    }
+
+    /**
+     * Primality below 2^31, exactly: Miller-Rabin with the bases 2, 7 and 61, which has no false
+     * positive below 4,759,123,141 (Jaeschke, Math. Comp. 61 (1993) 915; from memory).
+     */
+    static boolean isPrime(long n) {
+        if (n < 2) {
+            return false;
+        }
+        for (long small : new long[] {2, 3, 5, 7, 61}) {
+            if (n % small == 0) {
+                return n == small;
+            }
+        }
+        long d = n - 1;
+        int r = 0;
+        while ((d & 1) == 0) {
+            d >>= 1;
+            r++;
+        }
+        for (long a : new long[] {2, 7, 61}) {
+            long x = powMod(a, d, n);
+            if (x == 1 || x == n - 1) {
+                continue;
+            }
+            boolean composite = true;
+            for (int i = 1; i < r && composite; i++) {
+                x = x * x % n;
+                composite = x != n - 1;
+            }
+            if (composite) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** a^e mod n for n below 2^31 (products fit a long). */
+    private static long powMod(long a, long e, long n) {
+        long result = 1;
+        long b = a % n;
+        while (e > 0) {
+            if ((e & 1) != 0) {
+                result = result * b % n;
+            }
+            b = b * b % n;
+            e >>= 1;
+        }
+        return result;
+    }
+
     static long inverse(long a, long p) {
         long t = 0;
         long nt = 1;

@@ -723,13 +723,9 @@ public final class RationalFunction {
             if (i == own) {
                 continue;
             }
-            Polynomial img = lin[i].substitute(onPole);
-            if (img.isZero()) {
-                throw new ContourException("division by zero: the denominator factor (" + lin[i] + ") vanishes at " + x + " = " + at);
-            }
-            if (!img.isConstant()) {
-                Rational c = img.content();
-                images.merge(c.isOne() ? img : img.multiply(c.inverse()), mult[i], Integer::sum);
+            FactorImage img = imageOf(lin[i], onPole, null);
+            if (img.base() != null) {
+                images.merge(img.base(), mult[i], Integer::sum);
             }
         }
         for (Map.Entry<Polynomial, Integer> e : images.entrySet()) {
