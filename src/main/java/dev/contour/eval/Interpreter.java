@@ -382,6 +382,9 @@ public final class Interpreter {
             if (name.startsWith("rules/")) {
                 tried.add(options.rulesDirectory().resolve(name.substring(6)));
             }
+            for (Path library : InterpreterOptions.libraryDirectories()) {
+                tried.add(library.resolve(name));
+            }
         }
         for (Path p : tried) {
             if (Files.isRegularFile(p)) {

@@ -43,19 +43,34 @@ public record InterpreterOptions(PrintStream out, OutputFormat format, boolean c
      * {@code rules/} in the working directory.
      */
     public static Path defaultRulesDirectory() {
+        return projectRoot().resolve("rules");
+    }
+
+    /**
+     * Where {@code use} looks after the script's own folder and the rules directory: the project's
+     * {@code backgrounds/} (library files that define a background) and {@code rules/} (rewrite-rule
+     * files), in that order.
+     */
+    public static java.util.List<Path> libraryDirectories() {
+        Path root = projectRoot();
+        return java.util.List.of(root.resolve("backgrounds"), root.resolve("rules"));
+    }
+
+    /** The project folder that holds the running jar (it has {@code pom.xml} and {@code rules/}), else the working directory. */
+    public static Path projectRoot() {
         try {
             var source = InterpreterOptions.class.getProtectionDomain().getCodeSource();
             if (source != null) {
                 Path here = Path.of(source.getLocation().toURI());
                 for (Path p = here; p != null; p = p.getParent()) {
                     if (Files.isDirectory(p.resolve("rules")) && Files.exists(p.resolve("pom.xml"))) {
-                        return p.resolve("rules");
+                        return p;
                     }
                 }
             }
         } catch (URISyntaxException | SecurityException | IllegalArgumentException e) {
             // Fall through to the working directory: an odd class-path location is not an error.
         }
-        return Path.of("rules");
+        return Path.of("");
     }
 }
