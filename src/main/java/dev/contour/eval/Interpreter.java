@@ -52,6 +52,12 @@ public final class Interpreter {
     private long loopIterations;
     private int passed;
     private int failed;
+    private ShowWatcher showWatcher;
+
+    /** Receives each value a {@code show} statement prints: its label (with loop context) and the value as plain text. */
+    public interface ShowWatcher {
+        void shown(String label, String plainValue);
+    }
 
     public Interpreter(InterpreterOptions options) {
         this(options, BuiltinRegistry.standard());
@@ -142,6 +148,24 @@ public final class Interpreter {
         }
     }
 
+    /** Lets {@code watcher} see every shown value from now on (a sweep records them by label); null stops it. */
+    public void watchShows(ShowWatcher watcher) {
+        this.showWatcher = watcher;
+    }
+
+    /**
+     * The integer tuples of an index set written as in {@code sum} and {@code unknown}: the text is
+     * {@code sum BINDERS [with CONSTRAINTS] : 0}, evaluated in this session's scope; tuples come in
+     * lexicographic order of the indices as written.
+     */
+    public List<long[]> indexTuples(String sumText, String fileName) {
+        Expr e = ScriptParser.parseExpression(sumText, fileName);
+        if (!(e instanceof Expr.Sum sum)) {
+            throw new ContourException("not an index set", e.span());
+        }
+        return enumerate(sum.indices());
+    }
+
     /** Every name a script can use here: definitions, variables, unknown families and built-ins. */
     public Set<String> namesInScope() {
         Set<String> names = new TreeSet<>(globals.keySet());
@@ -214,6 +238,9 @@ public final class Interpreter {
             }
             if (!options.checksOnly()) {
                 options.out().print(display.show(sh, v, context()));
+            }
+            if (showWatcher != null) {
+                showWatcher.shown(context() + sh.label(), Display.plain(v, false));
             }
         } else if (s instanceof Stmt.Check c) {
             Value left = eval(c.left());

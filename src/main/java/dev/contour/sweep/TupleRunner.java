@@ -1,0 +1,128 @@
+package dev.contour.sweep;
+
+import dev.contour.ContourException;
+import dev.contour.eval.EvaluationLimits;
+import dev.contour.eval.Interpreter;
+import dev.contour.eval.InterpreterOptions;
+import dev.contour.eval.OutputFormat;
+import dev.contour.eval.RunResult;
+import dev.contour.lang.Diagnostic;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.lang.management.ManagementFactory;
+import java.lang.management.MemoryPoolMXBean;
+import java.lang.management.MemoryType;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * The interpreter's side of a sweep: runs the script for one tuple in a fresh interpreter, the
+ * tuple's values bound first as if by {@code let}, and turns the outcome into a {@link SweepRecord}.
+ */
+final class TupleRunner {
+    /** The file name the tuple's bindings are parsed under (it never appears in a located error of the script). */
+    static final String TUPLE_FILE = "<sweep tuple>";
+
+    private final Path script;
+    private final String text;
+    private final Path rules;
+    private final Duration timeLimit;
+    private final String memoryNote;
+    private boolean exhaustedMemory;
+
+    /**
+     * @param timeLimit  wall-clock budget of one tuple (zero: none)
+     * @param memoryNote how the per-tuple heap was set, for an out-of-memory message
+     */
+    TupleRunner(Path script, String text, Path rules, Duration timeLimit, String memoryNote) {
+        this.script = script;
+        this.text = text;
+        this.rules = rules;
+        this.timeLimit = timeLimit;
+        this.memoryNote = memoryNote;
+    }
+
+    /** Whether the last run ran out of memory (its worker is then best replaced by a fresh one). */
+    boolean exhaustedMemory() {
+        return exhaustedMemory;
+    }
+
+    SweepRecord run(Map<String, Long> tuple) {
+        exhaustedMemory = false;
+        ByteArrayOutputStream buffer = new ByteArrayOutputStream();
+        PrintStream out = new PrintStream(buffer, true, StandardCharsets.UTF_8);
+        EvaluationLimits d = EvaluationLimits.DEFAULT;
+        InterpreterOptions options = new InterpreterOptions(out, OutputFormat.PLAIN, false, rules, false,
+                new EvaluationLimits(d.maxExponent(), d.maxSetSize(), d.maxLoopIterations(), d.maxCallDepth(), timeLimit));
+        List<SweepRecord.Shown> shown = new ArrayList<>();
+        List<MemoryPoolMXBean> pools = heapPools();
+        pools.forEach(MemoryPoolMXBean::resetPeakUsage);
+        long start = System.nanoTime();
+        SweepRecord.Status status;
+        String error = null;
+        int passed = 0;
+        int failed = 0;
+        try {
+            Interpreter interpreter = new Interpreter(options);
+            StringBuilder bindings = new StringBuilder();
+            tuple.forEach((k, v) -> bindings.append("let ").append(k).append(" = ").append(v).append('\n'));
+            interpreter.run(bindings.toString(), TUPLE_FILE);
+            interpreter.watchShows((label, value) -> shown.add(new SweepRecord.Shown(label, value)));
+            RunResult result = interpreter.run(text, script.toString());
+            passed = result.checksPassed();
+            failed = result.checksFailed();
+            status = result.ok() ? SweepRecord.Status.OK : SweepRecord.Status.CHECK_FAILED;
+        } catch (ContourException e) {
+            status = SweepRecord.Status.ERROR;
+            String message = Diagnostic.render(e, sourceOf(e));
+            if (e.getMessage() != null && e.getMessage().startsWith("out of memory")) {
+                exhaustedMemory = true;
+                message = message.replaceFirst("\n", " [in a sweep: " + memoryNote + "]\n");
+            }
+            error = message;
+        } catch (OutOfMemoryError e) {
+            exhaustedMemory = true;
+            status = SweepRecord.Status.ERROR;
+            error = "out of memory outside any statement [in a sweep: " + memoryNote + "]\n";
+        } catch (RuntimeException | StackOverflowError e) {
+            status = SweepRecord.Status.ERROR;
+            error = "internal error: " + e + "\n";
+        }
+        long millis = (System.nanoTime() - start) / 1_000_000;
+        long peak = 0;
+        for (MemoryPoolMXBean p : pools) {
+            peak += p.getPeakUsage() == null ? 0 : p.getPeakUsage().getUsed();
+        }
+        out.flush();
+        return new SweepRecord(tuple, status, error, shown, buffer.toString(StandardCharsets.UTF_8),
+                passed, failed, millis, pools.isEmpty() ? -1 : peak);
+    }
+
+    private static List<MemoryPoolMXBean> heapPools() {
+        List<MemoryPoolMXBean> out = new ArrayList<>();
+        for (MemoryPoolMXBean p : ManagementFactory.getMemoryPoolMXBeans()) {
+            if (p.getType() == MemoryType.HEAP && p.isValid()) {
+                out.add(p);
+            }
+        }
+        return out;
+    }
+
+    /** The text of the file an error points into: the script itself or a library it used. */
+    private String sourceOf(ContourException e) {
+        if (e.span() == null || e.span().file().equals(script.toString())) {
+            return text;
+        }
+        try {
+            return Files.readString(Path.of(e.span().file()), StandardCharsets.UTF_8);
+        } catch (IOException | RuntimeException x) {
+            return null;
+        }
+    }
+}
