@@ -216,7 +216,7 @@ final class Display {
         return v.render(OutputFormat.PLAIN, factored);
     }
 
-    private static String latex(Value v, boolean factored) {
+    static String latex(Value v, boolean factored) {
         if (v instanceof ExprValue e) {
             return LatexPrinter.expression(e.value(), factored);
         }

@@ -54,9 +54,9 @@ public final class Interpreter {
     private int failed;
     private ShowWatcher showWatcher;
 
-    /** Receives each value a {@code show} statement prints: its label (with loop context) and the value as plain text. */
+    /** Receives each value a {@code show} statement prints: its label (with loop context) and the value as plain text and as LaTeX. */
     public interface ShowWatcher {
-        void shown(String label, String plainValue);
+        void shown(String label, String plainValue, String latexValue);
     }
 
     public Interpreter(InterpreterOptions options) {
@@ -240,7 +240,7 @@ public final class Interpreter {
                 options.out().print(display.show(sh, v, context()));
             }
             if (showWatcher != null) {
-                showWatcher.shown(context() + sh.label(), Display.plain(v, false));
+                showWatcher.shown(context() + sh.label(), Display.plain(v, false), Display.latex(v, false));
             }
         } else if (s instanceof Stmt.Check c) {
             Value left = eval(c.left());

@@ -205,20 +205,29 @@ final class SummaryTable {
         return out.toString();
     }
 
+    /** Header cells as text; tuple values and shown values in math mode, as the show statement's LaTeX form prints them. */
     private String latex() {
         List<String> h = header();
         StringBuilder out = new StringBuilder("\\begin{tabular}{" + "l".repeat(h.size()) + "}\n\\hline\n");
-        out.append(latexRow(h)).append("\\hline\n");
-        rows.forEach(r -> out.append(latexRow(cells(r))));
-        return out.append("\\hline\n\\end{tabular}\n").toString();
-    }
-
-    private static String latexRow(List<String> cells) {
-        List<String> escaped = new ArrayList<>();
-        for (String c : cells) {
-            escaped.add(c.isEmpty() ? "" : "\\texttt{" + latexEscape(c) + "}");
+        out.append(String.join(" & ", h.stream().map(c -> "\\texttt{" + latexEscape(c) + "}").toList())).append(" \\\\\n\\hline\n");
+        for (SweepRecord r : rows) {
+            List<String> c = new ArrayList<>();
+            for (String n : names) {
+                c.add("$" + r.tuple().get(n) + "$");
+            }
+            c.add(r.status().word);
+            for (String l : labels) {
+                String v = r.shownLatex(l);
+                c.add(v == null ? "" : "$" + v + "$");
+            }
+            if (timings) {
+                List<String> plain = cells(r);
+                c.add(plain.get(plain.size() - 2));
+                c.add(plain.get(plain.size() - 1));
+            }
+            out.append(String.join(" & ", c)).append(" \\\\\n");
         }
-        return String.join(" & ", escaped) + " \\\\\n";
+        return out.append("\\hline\n\\end{tabular}\n").toString();
     }
 
     /** Plain text safe inside {@code \texttt}: TeX's special characters written as commands. */

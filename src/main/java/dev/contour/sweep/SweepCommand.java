@@ -124,6 +124,9 @@ public final class SweepCommand implements Subcommand {
             Thread.currentThread().interrupt();
             err.println("contour sweep: interrupted");
             return BAD_INPUT;
+        } catch (IllegalStateException e) {
+            err.println("contour sweep: " + e.getMessage());
+            return BAD_INPUT;
         }
     }
 
@@ -327,7 +330,8 @@ public final class SweepCommand implements Subcommand {
             WorkerPool.Settings settings = new WorkerPool.Settings(javaCommand(memory, jobs),
                     List.of(folder.root().toAbsolutePath().toString(), o.script.toAbsolutePath().toString(),
                             o.rules == null ? "" : o.rules.toAbsolutePath().toString(), Long.toString(o.tupleSeconds), memoryNote),
-                    jobs, Duration.ofSeconds(o.tupleSeconds + 60), memoryNote);
+                    jobs, Duration.ofSeconds(o.tupleSeconds + 2 + o.tupleSeconds / 10), memoryNote,
+                    "each tuple may take --tuple-time " + o.tupleSeconds + " s; raise it with --tuple-time SECONDS");
             SweepProgress progress = new SweepProgress(err, System.console() != null, todo.size());
             new WorkerPool(settings, folder, mine).run(todo, progress);
             progress.close();
@@ -394,7 +398,7 @@ public final class SweepCommand implements Subcommand {
         boolean stack = false;
         for (String arg : ManagementFactory.getRuntimeMXBean().getInputArguments()) {
             if (arg.startsWith("-XX:SharedArchiveFile") || arg.startsWith("-Xshare") || arg.startsWith("-Xlog:cds")
-                    || arg.startsWith("-XX:TieredStopAtLevel") || arg.matches("-XX:[+]Use\\w+GC") || arg.startsWith("-Xss")) {
+                    || arg.startsWith("-XX:TieredStopAtLevel") || arg.startsWith("-Xss")) {
                 c.add(arg);
                 stack |= arg.startsWith("-Xss");
             }
@@ -402,6 +406,12 @@ public final class SweepCommand implements Subcommand {
         if (!stack) {
             c.add("-Xss16m"); // as the launcher: deep expressions recurse
         }
+        // The parallel collector gives up with an out-of-memory error when nearly all time goes to
+        // collection; G1 has no such limit and a tuple near its heap bound thrashed for minutes.
+        // Tighter than its defaults (98% of time, 2% freed), so a hopeless tuple ends sooner.
+        c.add("-XX:+UseParallelGC");
+        c.add("-XX:GCTimeLimit=90");
+        c.add("-XX:GCHeapFreeLimit=10");
         c.add("-Xmx" + memory);
         int cores = Runtime.getRuntime().availableProcessors();
         c.add("-XX:ActiveProcessorCount=" + Math.max(1, cores / jobs)); // workers share the cores rather than each claiming all

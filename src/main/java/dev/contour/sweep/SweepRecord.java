@@ -45,14 +45,24 @@ record SweepRecord(Map<String, Long> tuple, Status status, String error, List<Sh
         }
     }
 
-    /** One shown value: the statement's label and the value's plain text. */
-    record Shown(String label, String value) { }
+    /** One shown value: the statement's label and the value's plain text and LaTeX. */
+    record Shown(String label, String value, String latex) { }
 
     /** The tuple as {@code p = 3, q = 1}. */
     static String describe(Map<String, Long> tuple) {
         StringBuilder out = new StringBuilder();
         tuple.forEach((k, v) -> out.append(out.length() == 0 ? "" : ", ").append(k).append(" = ").append(v));
         return out.toString();
+    }
+
+    /** The LaTeX of the first shown value with this label, or null. */
+    String shownLatex(String label) {
+        for (Shown s : shown) {
+            if (s.label().equals(label)) {
+                return s.latex();
+            }
+        }
+        return null;
     }
 
     /** The first shown value with this label, or null. */
@@ -78,6 +88,7 @@ record SweepRecord(Map<String, Long> tuple, Status status, String error, List<Sh
             Map<String, Object> one = new LinkedHashMap<>();
             one.put("label", x.label());
             one.put("value", x.value());
+            one.put("latex", x.latex());
             s.add(one);
         }
         m.put("shown", s);
@@ -118,10 +129,11 @@ record SweepRecord(Map<String, Long> tuple, Status status, String error, List<Sh
             throw new Json.Malformed("the record has no \"shown\" list", 1);
         }
         for (Object o : list) {
-            if (!(o instanceof Map<?, ?> one) || !(one.get("label") instanceof String l) || !(one.get("value") instanceof String val)) {
-                throw new Json.Malformed("a \"shown\" item needs a \"label\" and a \"value\" string", 1);
+            if (!(o instanceof Map<?, ?> one) || !(one.get("label") instanceof String l) || !(one.get("value") instanceof String val)
+                    || !(one.get("latex") instanceof String tex)) {
+                throw new Json.Malformed("a \"shown\" item needs \"label\", \"value\" and \"latex\" strings", 1);
             }
-            shown.add(new Shown(l, val));
+            shown.add(new Shown(l, val, tex));
         }
         return new SweepRecord(tuple, status, error, shown, m.get("output") instanceof String o ? o : "",
                 (int) integer(m, "checks_passed"), (int) integer(m, "checks_failed"),

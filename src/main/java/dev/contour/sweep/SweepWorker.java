@@ -37,6 +37,8 @@ public final class SweepWorker {
             System.exit(2);
         }
         TupleRunner runner = new TupleRunner(script, text, rules, limit, args[4]);
+        runner.warmUp();
+        protocol.println("ready");
         BufferedReader in = new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8));
         for (String line = in.readLine(); line != null; line = in.readLine()) {
             if (line.isBlank()) {

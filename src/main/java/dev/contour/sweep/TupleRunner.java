@@ -53,6 +53,15 @@ final class TupleRunner {
         return exhaustedMemory;
     }
 
+    /**
+     * Loads the interpreter's classes and the parser before the first tuple, so neither a tuple's
+     * time nor its time limit pays for the worker's start.
+     */
+    void warmUp() {
+        Interpreter interpreter = new Interpreter(InterpreterOptions.to(new PrintStream(java.io.OutputStream.nullOutputStream())));
+        interpreter.run("vars warm_s\nlet warm_x = (warm_s + 1)^2 / (warm_s - 1)\nshow warm_x\ncheck warm_x == warm_x\n", "<sweep warm-up>");
+    }
+
     SweepRecord run(Map<String, Long> tuple) {
         exhaustedMemory = false;
         ByteArrayOutputStream buffer = new ByteArrayOutputStream();
@@ -73,7 +82,7 @@ final class TupleRunner {
             StringBuilder bindings = new StringBuilder();
             tuple.forEach((k, v) -> bindings.append("let ").append(k).append(" = ").append(v).append('\n'));
             interpreter.run(bindings.toString(), TUPLE_FILE);
-            interpreter.watchShows((label, value) -> shown.add(new SweepRecord.Shown(label, value)));
+            interpreter.watchShows((label, value, latex) -> shown.add(new SweepRecord.Shown(label, value, latex)));
             RunResult result = interpreter.run(text, script.toString());
             passed = result.checksPassed();
             failed = result.checksFailed();
@@ -83,7 +92,12 @@ final class TupleRunner {
             String message = Diagnostic.render(e, sourceOf(e));
             if (e.getMessage() != null && e.getMessage().startsWith("out of memory")) {
                 exhaustedMemory = true;
-                message = message.replaceFirst("\n", " [in a sweep: " + memoryNote + "]\n");
+                int cut = message.indexOf("; a larger heap can be given with CONTOUR_JAVA_OPTS");
+                int end = message.indexOf('\n');
+                if (cut >= 0 && cut < end) {
+                    message = message.substring(0, cut) + message.substring(end); // the launcher's option does not reach workers
+                }
+                message = message.replaceFirst("\n", "; " + memoryNote + "\n");
             }
             error = message;
         } catch (OutOfMemoryError e) {

@@ -27,9 +27,12 @@ import java.util.concurrent.TimeUnit;
  */
 final class WorkerPool {
     /** How workers start and how long a tuple may take before its worker is stopped. */
-    record Settings(List<String> javaCommand, List<String> workerArguments, int jobs, Duration tupleTimeout, String memoryNote) { }
+    record Settings(List<String> javaCommand, List<String> workerArguments, int jobs, Duration tupleTimeout, String memoryNote,
+                    String timeNote) { }
 
     private static final String END = "\u0000end";
+    /** How long a worker may take to start and warm up before the sweep gives up on it. */
+    private static final Duration STARTUP = Duration.ofSeconds(300);
 
     private final Settings settings;
     private final ResultsFolder folder;
@@ -127,6 +130,7 @@ final class WorkerPool {
                 toWorker.write(index + "\n");
                 toWorker.flush();
             }
+            sent = FileTime.fromMillis(System.currentTimeMillis() - 1000);
             long timeout = settings.tupleTimeout().toMillis();
             String answer = fromWorker.poll(timeout, TimeUnit.MILLISECONDS);
             if (answer != null && answer.equals("done " + index)) {
@@ -137,8 +141,8 @@ final class WorkerPool {
                 process.descendants().forEach(ProcessHandle::destroyForcibly);
                 process.destroyForcibly();
                 process.waitFor(10, TimeUnit.SECONDS);
-                why = "the tuple ran past the sweep's time limit of " + settings.tupleTimeout().toSeconds()
-                        + " s and its worker was stopped (raise the limit with --tuple-time SECONDS)";
+                why = "the tuple ran past its time limit and its worker was stopped after "
+                        + settings.tupleTimeout().toSeconds() + " s (" + settings.timeNote() + ")";
             } else {
                 process.waitFor(10, TimeUnit.SECONDS);
                 int code = process.isAlive() ? -1 : process.exitValue();
@@ -191,6 +195,12 @@ final class WorkerPool {
             }, "contour-sweep-reader-" + number);
             reader.setDaemon(true);
             reader.start();
+            String hello = lines.poll(STARTUP.toMillis(), TimeUnit.MILLISECONDS);
+            if (!"ready".equals(hello)) {
+                process.destroyForcibly();
+                throw new IOException("a sweep worker did not start within " + STARTUP.toSeconds() + " s"
+                        + (hello == null || hello.equals(END) ? "" : " (it said: " + hello + ")") + "; its log is in " + folder.logs());
+            }
         }
 
         private void retire() throws InterruptedException {
