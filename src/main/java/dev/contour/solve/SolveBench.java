@@ -16,7 +16,7 @@ import java.nio.charset.StandardCharsets;
  */
 public final class SolveBench {
     /** The derivation timed for weight p: the ansatz of the "ansatz-sum" workload, then the solve. */
-    static String script(int p) {
+    public static String script(int p) {
         return dev.contour.eval.AnsatzSumBench.script(p)
                 + "let sol = solve supergravity_poles(ward(p)(Mred), p) for a\n"
                 + "show free_unknowns(sol)\n";
