@@ -105,7 +105,8 @@ public final class SweepCommand implements Subcommand {
         try {
             o = parse(args);
         } catch (Usage e) {
-            err.println("contour sweep: " + e.getMessage() + " (see 'contour sweep --help')");
+            err.println("contour sweep: " + e.getMessage());
+            err.print(USAGE);
             return BAD_INPUT;
         }
         if (o == null) {
