@@ -14,7 +14,7 @@ import java.util.List;
  * reach that slice. Taking twists in increasing order and spins in increasing order, the coefficient
  * of each block is the residual's coefficient of its leading monomial; the block times it is
  * subtracted. For each listed twist every spin up to the order is solved for (the listed spins are
- * reported). What is left is the residual: zero when the series is a sum of blocks of the listed
+ * reported when twist + spin is within the order). What is left is the residual: zero when the series is a sum of blocks of the listed
  * twists to the order.
  */
 public final class BlockDecomposition {
@@ -46,10 +46,9 @@ public final class BlockDecomposition {
         if (ts.isEmpty() || ls.isEmpty()) {
             throw new ContourException("give at least one twist and one spin");
         }
-        int need = ts.get(ts.size() - 1) + ls.get(ls.size() - 1);
-        if (need > f.order()) {
-            throw new ContourException("twist " + ts.get(ts.size() - 1) + " and spin " + ls.get(ls.size() - 1)
-                    + " need the series to total degree " + need + ", but it is known to " + f.order() + "; raise its order");
+        if (ts.get(0) + ls.get(0) > f.order()) {
+            throw new ContourException("twist " + ts.get(0) + " and spin " + ls.get(0) + " need the series to total degree "
+                    + (ts.get(0) + ls.get(0)) + ", but it is known to " + f.order() + "; raise its order");
         }
         for (int tw : ts) {
             if (tw < 0 || tw % 2 != 0) {
@@ -69,7 +68,7 @@ public final class BlockDecomposition {
         for (int tw : ts) {
             for (int l = 0; tw + l <= f.order(); l++) {
                 Rational c = residual.coefficient(tw / 2 + l, tw / 2);
-                if (ls.contains(l)) {
+                if (ls.contains(l)) { // blocks beyond the order are not reported: their leading term is unknown
                     out.add(new Coefficient(tw, l, c));
                 }
                 if (!c.isZero()) {

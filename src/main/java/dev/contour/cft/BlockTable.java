@@ -98,21 +98,37 @@ public record BlockTable(String title, List<Integer> twists, List<Integer> spins
         };
     }
 
-    /** The same data with another title, row labelling and a subset of twists and spins. */
-    public BlockTable relabel(String newTitle, Integer lowest, List<Integer> keepSpins) {
+    /** The same data with another title, rows n = (twist - lowest)/2 (lower twists left out) and a subset of the spins. */
+    public BlockTable relabel(String newTitle, Integer lowest, List<Integer> keepSpins, List<Integer> keepRows) {
         List<Integer> ls = keepSpins == null ? spins : keepSpins;
         for (int l : ls) {
             if (!spins.contains(l)) {
                 throw new ContourException("the table has no spin " + l + " (spins " + spins + ")");
             }
         }
+        List<Integer> ts = twists;
         if (lowest != null) {
-            for (int t : twists) {
-                if (t < lowest || (t - lowest) % 2 != 0) {
-                    throw new ContourException("twist " + t + " is not lowest_twist + 2n with n >= 0 (lowest_twist " + lowest + ")");
-                }
+            // Rows below the lowest twist (protected sectors, for instance) are left out.
+            ts = twists.stream().filter(t -> t >= lowest && (t - lowest) % 2 == 0).toList();
+            if (ts.isEmpty()) {
+                throw new ContourException("no twist of the table is lowest_twist + 2n with n >= 0 (lowest_twist " + lowest
+                        + ", twists " + twists + ")");
             }
         }
-        return new BlockTable(newTitle == null ? title : newTitle, twists, ls, entries, residual, lowest);
+        if (keepRows != null) {
+            if (lowest == null) {
+                throw new ContourException("rows: needs lowest_twist: (row n is twist lowest_twist + 2n)");
+            }
+            List<Integer> kept = new java.util.ArrayList<>();
+            for (int n : keepRows) {
+                int t = lowest + 2 * n;
+                if (!ts.contains(t)) {
+                    throw new ContourException("the table has no row n = " + n + " (twist " + t + "; twists " + twists + ")");
+                }
+                kept.add(t);
+            }
+            ts = kept;
+        }
+        return new BlockTable(newTitle == null ? title : newTitle, ts, ls, entries, residual, lowest);
     }
 }

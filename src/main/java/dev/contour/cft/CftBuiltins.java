@@ -45,8 +45,8 @@ public final class CftBuiltins implements BuiltinProvider {
         r.register(Builtin.of("block_coefficient", 3,
                 "block_coefficient(D, twist, spin): one entry of a block table", CftBuiltins::blockCoefficient));
         r.register(Builtin.of("residual", 1, "residual(D): what a decomposition left over, as a z, zbar series", CftBuiltins::residual));
-        r.register(new Builtin("data_table", 1, 1, Set.of("title", "lowest_twist", "spins"), false,
-                "data_table(D, title: \"gamma\", lowest_twist: 8, spins: 0..20 step 2): the table with rows n = (twist - lowest_twist)/2",
+        r.register(new Builtin("data_table", 1, 1, Set.of("title", "lowest_twist", "spins", "rows"), false,
+                "data_table(D, title: \"gamma\", lowest_twist: 8, rows: 0..10, spins: 0..20 step 2): the table with rows n = (twist - lowest_twist)/2",
                 CftBuiltins::dataTable));
     }
 
@@ -145,8 +145,9 @@ public final class CftBuiltins implements BuiltinProvider {
         }
         Integer lowest = a.named("lowest_twist").map(x -> Values.integer(x.value(), x.span(), "data_table: lowest_twist")).orElse(null);
         List<Integer> spins = a.named("spins").isPresent() ? integers(a.named("spins").get(), "data_table: spins") : null;
+        List<Integer> rows = a.named("rows").isPresent() ? integers(a.named("rows").get(), "data_table: rows") : null;
         String ft = title;
-        return new BlockTableValue(at(span, () -> t.relabel(ft, lowest, spins)));
+        return new BlockTableValue(at(span, () -> t.relabel(ft, lowest, spins, rows)));
     }
 
     // ---------------------------------------------------------------------------------- helpers
