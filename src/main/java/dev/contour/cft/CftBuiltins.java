@@ -37,7 +37,7 @@ public final class CftBuiltins implements BuiltinProvider {
                 "zseries(X, order: 20, log: 1, times_u: 2): X (an expression in U, V, or the (log U)^k part of a small-U expansion)"
                         + " times U^times_u as an exact series in z, zbar to that total degree", CftBuiltins::zseries));
         r.register(new Builtin("block", 3, 3, Set.of("order"), false,
-                "block(4, Delta, l, order: 20): the conformal block G_(Delta, l) in d = 2 or 4 as a series in z, zbar,"
+                "block(4, Delta, l, order: 20): the conformal block G_(Delta, l) in d = 2, 4 or 6 as a series in z, zbar,"
                         + " normalised as z^((Delta+l)/2) zbar^((Delta-l)/2) (1 + ...)", CftBuiltins::block));
         r.register(new Builtin("decompose", 1, 1, Set.of("d", "twists", "spins"), false,
                 "decompose(F, d: 4, twists: 4..12 step 2, spins: 0..8): the exact coefficients of the blocks in the series F and the residual",

@@ -13,6 +13,7 @@ import java.util.List;
  *   <li>d = 4: {@code G = z zbar/(z - zbar) [k_(Delta+l)(z) k_(Delta-l-2)(zbar) - (z <-> zbar)]};</li>
  *   <li>d = 2: {@code G = [k_(Delta+l)(z) k_(Delta-l)(zbar) + (z <-> zbar)] / (1 + delta_(l,0))};</li>
  * </ul>
+ * and d = 6 from the Casimir recursion ({@link CasimirBlocks}, checked against the d = 4 closed form),
  * with {@code k_b(x) = x^(b/2) 2F1(b/2, b/2; b; x)}. Normalisation: G is z^((Delta+l)/2) zbar^((Delta-l)/2)
  * (1 + ...) for zbar << z << 1 (no 2^l factors). The twist Delta - l must be an even integer >= 0
  * so that the series has integer powers.
@@ -87,7 +88,10 @@ public final class ConformalBlocks {
                     }
                 }
             }
-            default -> throw new ContourException("blocks are available in d = 2 and d = 4, not d = " + d);
+            case 6 -> {
+                return CasimirBlocks.block(6, delta, spin, order);
+            }
+            default -> throw new ContourException("blocks are available in d = 2, 4 and 6, not d = " + d);
         }
         return b.build();
     }
