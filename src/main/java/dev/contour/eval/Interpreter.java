@@ -688,6 +688,9 @@ public final class Interpreter {
         frames.push(frame);
         try {
             return eval(f.body());
+        } catch (CallerError e) {
+            // a library's complaint about its input belongs at the call the user wrote
+            throw e.relocated(c.span());
         } finally {
             frames = saved;
             callDepth--;
