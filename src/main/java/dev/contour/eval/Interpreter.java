@@ -876,7 +876,7 @@ public final class Interpreter {
         }
         if (w.normalizedTarget() != null) {
             String member = targetName(w.normalizedTarget());
-            b = b.normalized(Expression.collectedVariable(member), eval(w.normalizedValue()), w.normalizedTarget().span());
+            b = b.normalizedFor(target, Expression.collectedVariable(member), eval(w.normalizedValue()), w.normalizedTarget().span());
         }
         return b.applyTo(target, w.span());
     }
