@@ -55,6 +55,9 @@ public final class SolveBuiltins implements BuiltinProvider {
         r.register(Builtin.of("family", 2,
                 "family(E, sol): how many functions E with sol describes, and how many free unknowns only re-express them",
                 (a, span) -> new FamilyValue(relations(a))));
+        r.register(Builtin.of("system_size", 1,
+                "system_size(sol): {unknowns, equations} of the linear system the solve built",
+                SolveBuiltins::systemSize));
         r.setSolver(SolveBuiltins::solve);
     }
 
@@ -178,6 +181,13 @@ public final class SolveBuiltins implements BuiltinProvider {
         }
         List<String> free = sv.solution() instanceof Solution.Family f ? f.free() : List.of();
         return new ListValue(free.stream().map(n -> (Value) new ExprValue(Expression.collectedVariable(n))).toList());
+    }
+
+    private static Value systemSize(Arguments a, Span span) {
+        if (!(a.get(0) instanceof SolutionValue sv) || sv.figures() == null) {
+            throw new ContourException("system_size takes the result of a solve", a.spanOf(0));
+        }
+        return new ListValue(List.of(Values.of(sv.figures().unknowns()), Values.of(sv.figures().equations())));
     }
 
     /** The directions of E with sol along sol's free unknowns, separated exactly. */
