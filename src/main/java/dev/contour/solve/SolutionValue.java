@@ -101,9 +101,10 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
                 moved = moved.add(row.get(fam.free().indexOf(x.getKey()) + 1).multiply(x.getValue()));
             }
             if (!moved.isZero()) {
+                int extra = fam.free().size() - rel.dimension();
                 throw new ContourException("normalized: " + name + " changes while the function stays the same ("
-                        + (fam.free().size() - rel.dimension()) + " free unknowns only re-express it), so fixing it does not"
-                        + " fix the function; normalise by a coefficient of function_basis instead", span);
+                        + extra + " free unknown" + (extra == 1 ? " only re-expresses" : "s only re-express")
+                        + " it), so fixing it does not fix the function; normalise by a coefficient of function_basis instead", span);
             }
         }
         return new SolutionValue(fam.keeping(rel.basis())).normalized(member, value, span);
