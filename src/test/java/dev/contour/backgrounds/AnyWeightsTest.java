@@ -82,6 +82,22 @@ class AnyWeightsTest {
     }
 
     @Test
+    void theExampleOfTheBackgroundDocRuns() {
+        // docs/backgrounds/ads5s5.md: a made-up ordering, solved from the general ansatz
+        String out = passes("""
+                let w = {5, 4, 4, 3}
+                unknown c[i, j, x in -1..1, y in -1..1, z in -1..1] with i + j <= degree(w) - 2
+                let Mred = general_ansatz(w, c, 1)
+                let M = ward_of(w)(Mred)
+                let sol = solve residues_allowed_of(M, w), poles_allowed_of(M, w) for c
+                show family(Mred, sol)
+                let F = item(function_basis(Mred, sol), 1)
+                check F * coefficient(closed_form(w), 1) == closed_form(w) * coefficient(F, 1)
+                """);
+        assertTrue(out.contains("a one-dimensional family of functions;"), out);
+    }
+
+    @Test
     void equalWeightsAreTheSpecialCase() {
         // arXiv:1608.06624: for equal weights a_ijk is proportional to ((p-2)!/(i! j! k!))^2; the general
         // definitions at {p, p, p, p} agree with the equal-weight ones of the same file (physics-reference section 4)
