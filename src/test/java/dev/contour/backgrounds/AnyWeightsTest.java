@@ -82,6 +82,20 @@ class AnyWeightsTest {
     }
 
     @Test
+    void contactTermsAreRemovedByTheGrowthBound() {
+        // supergravity growth O(beta) (arXiv:1608.06624, arXiv:1710.05923): a contact term in the reduced
+        // amplitude grows like beta^4 or faster in M, so the growth bound removes it and one function is left
+        passes(solved("{4, 3, 3, 2}", 1).replace("let Mred = general_ansatz(w, c, 1)",
+                "unknown e[i, j, m, n] with i + j <= degree(w) - 2, m + n <= 1\n"
+                + "let Mred = general_ansatz(w, c, 1) + contact_terms(w, e, 1)")
+                .replace("poles_allowed_of(M, w) for c", "poles_allowed_of(M, w), growth_at_most(M, 1, s, t) for c, e") + """
+                check function_count(Mred, sol) == 1
+                check e with sol == {0, 0, 0}
+                check F * coefficient(closed_form(w), 1) == closed_form(w) * coefficient(F, 1)
+                """);
+    }
+
+    @Test
     void theExampleOfTheBackgroundDocRuns() {
         // docs/backgrounds/ads5s5.md: a made-up ordering, solved from the general ansatz
         String out = passes("""
