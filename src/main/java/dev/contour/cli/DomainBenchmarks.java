@@ -1,9 +1,9 @@
 package dev.contour.cli;
 
-import dev.contour.eval.AnsatzSumBench;
-import dev.contour.mellin.WardBench;
-import dev.contour.numeric.NumericBench;
-import dev.contour.solve.SolveBench;
+import dev.contour.bench.AnsatzSumBench;
+import dev.contour.bench.WardBench;
+import dev.contour.bench.NumericBench;
+import dev.contour.bench.SolveBench;
 
 /** The workloads of the Mellin, solver and numeric parts, each printing its own table. */
 public final class DomainBenchmarks implements BenchRegistry.Provider {
@@ -23,5 +23,6 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
                 "the one-loop box function as a two-variable Mellin-Barnes integral to 15 digits",
                 NumericBench::runBench));
         dev.contour.bench.CftDataBench.register(r);
+        dev.contour.bench.SweepBench.register(r);
     }
 }

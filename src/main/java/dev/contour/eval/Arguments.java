@@ -17,15 +17,39 @@ public record Arguments(String function, List<Argument> all) {
     }
 
     public List<Argument> positional() {
-        return all.stream().filter(a -> a.kind() == ArgumentKind.POSITIONAL).toList();
+        return only(ArgumentKind.POSITIONAL);
     }
 
     public List<Argument> named() {
-        return all.stream().filter(a -> a.kind() == ArgumentKind.NAMED).toList();
+        return only(ArgumentKind.NAMED);
     }
 
     public List<Argument> domains() {
-        return all.stream().filter(a -> a.kind() == ArgumentKind.DOMAIN).toList();
+        return only(ArgumentKind.DOMAIN);
+    }
+
+    // Called for every argument a built-in reads, inside sums over thousands of terms: a plain loop,
+    // and the whole list when every argument is of the kind (the common case), not a stream each time.
+    private List<Argument> only(ArgumentKind kind) {
+        int n = 0;
+        for (Argument a : all) {
+            if (a.kind() == kind) {
+                n++;
+            }
+        }
+        if (n == all.size()) {
+            return all;
+        }
+        if (n == 0) {
+            return List.of();
+        }
+        List<Argument> out = new java.util.ArrayList<>(n);
+        for (Argument a : all) {
+            if (a.kind() == kind) {
+                out.add(a);
+            }
+        }
+        return java.util.Collections.unmodifiableList(out);
     }
 
     /** The i-th positional argument's value. */

@@ -26,6 +26,7 @@ public final class BuiltinRegistry {
     public static BuiltinRegistry standard() {
         BuiltinRegistry r = new BuiltinRegistry();
         CoreBuiltins.register(r);
+        UtilityBuiltins.register(r);
         for (BuiltinProvider p : ServiceLoader.load(BuiltinProvider.class)) {
             p.register(r);
         }

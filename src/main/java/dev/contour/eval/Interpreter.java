@@ -715,6 +715,9 @@ public final class Interpreter {
         frames.push(frame);
         try {
             return eval(f.body());
+        } catch (CallerError e) {
+            // a library's complaint about its input belongs at the call the user wrote
+            throw e.relocated(c.span());
         } finally {
             frames = saved;
             callDepth--;
@@ -900,7 +903,7 @@ public final class Interpreter {
         }
         if (w.normalizedTarget() != null) {
             String member = targetName(w.normalizedTarget());
-            b = b.normalized(Expression.collectedVariable(member), eval(w.normalizedValue()), w.normalizedTarget().span());
+            b = b.normalizedFor(target, Expression.collectedVariable(member), eval(w.normalizedValue()), w.normalizedTarget().span());
         }
         return b.applyTo(target, w.span());
     }

@@ -10,17 +10,17 @@ import org.apfloat.Apint;
  * Re s = Re t = -1/3 and in closed form through dilogarithms (closed form: Usyukina and Davydychev,
  * Phys. Lett. B 298 (1993) 363). The numerics' reference workload: two independent routes to one number.
  */
-final class BoxFunction {
+public final class BoxFunction {
     private BoxFunction() { }
 
     /** The contour Re s = Re t = -1/3, to the working precision of {@code digits}. */
-    static Apfloat contour(int digits) {
+    public static Apfloat contour(int digits) {
         long wp = MellinBarnes.workingPrecision(digits);
         return new Apfloat(-1, wp + 5).divide(new Apint(3));
     }
 
     /** U^s V^t Gamma(-s)^2 Gamma(-t)^2 Gamma(1+s+t)^2 for the point z (z and zbar its conjugate). */
-    static Integrand2 integrand(Apcomplex z, int digits) {
+    public static Integrand2 integrand(Apcomplex z, int digits) {
         long wp = MellinBarnes.workingPrecision(digits) + 5;
         Apcomplex zz = z.precision(wp);
         Apcomplex u = zz.multiply(zz.conj());
@@ -48,7 +48,7 @@ final class BoxFunction {
     }
 
     /** [2 Li2(z) - 2 Li2(zbar) + ln(z zbar) ln((1-z)/(1-zbar))] / (z - zbar), for Im z != 0. */
-    static NumericResult closedForm(Apcomplex z, int digits) {
+    public static NumericResult closedForm(Apcomplex z, int digits) {
         return SpecialFunctions.evaluate(p -> {
             Apcomplex zz = z.precision(p);
             Apcomplex zb = zz.conj();

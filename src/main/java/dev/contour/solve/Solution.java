@@ -55,6 +55,27 @@ public sealed interface Solution permits Solution.Unique, Solution.Family, Solut
             return "family";
         }
 
+        /** The family with every free unknown not in {@code keep} set to 0. */
+        public Solution keeping(List<String> keep) {
+            List<Integer> cols = new ArrayList<>();
+            for (int f = 0; f < free.size(); f++) {
+                if (keep.contains(free.get(f))) {
+                    cols.add(f);
+                }
+            }
+            List<List<Rational>> rows = new ArrayList<>();
+            for (List<Rational> r : affine) {
+                List<Rational> n = new ArrayList<>();
+                n.add(r.get(0));
+                cols.forEach(c -> n.add(r.get(c + 1)));
+                rows.add(n);
+            }
+            if (cols.isEmpty()) {
+                return new Unique(unknowns, rows.stream().map(r -> r.get(0)).toList());
+            }
+            return new Family(unknowns, cols.stream().map(free::get).toList(), rows);
+        }
+
         /** How many unknowns stay free. */
         public int dimension() {
             return free.size();

@@ -77,6 +77,39 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
         return new SolutionValue(solution.normalized(name, v, span));
     }
 
+    /**
+     * The reduced representative: when the target's directions along the free unknowns obey exact
+     * relations, the free unknowns that only re-express the target are set to 0 before normalising.
+     * That is only sound when the normalised unknown does not move along those relations (else the
+     * normalisation would not fix the function): then it is an error naming the unknown.
+     */
+    @Override
+    public BindingValue normalizedFor(Value target, Expression member, Value value, Span span) {
+        if (!(solution instanceof Solution.Family fam) || !(target instanceof ExprValue e)) {
+            return normalized(member, value, span);
+        }
+        FunctionRelations.Result rel = FunctionRelations.of(solution.substituteInto(e.value()), fam.free());
+        if (rel.relations().isEmpty()) {
+            return normalized(member, value, span);
+        }
+        normalized(member, value, span); // the usual checks on the named unknown
+        String name = member.collectedVariables().first();
+        List<Rational> row = fam.affine().get(fam.unknowns().indexOf(name));
+        for (Map<String, Rational> r : rel.relations()) {
+            Rational moved = Rational.ZERO;
+            for (Map.Entry<String, Rational> x : r.entrySet()) {
+                moved = moved.add(row.get(fam.free().indexOf(x.getKey()) + 1).multiply(x.getValue()));
+            }
+            if (!moved.isZero()) {
+                int extra = fam.free().size() - rel.dimension();
+                throw new ContourException("normalized: " + name + " changes while the function stays the same ("
+                        + extra + " free unknown" + (extra == 1 ? " only re-expresses" : "s only re-express")
+                        + " it), so fixing it does not fix the function; normalise by a coefficient of function_basis instead", span);
+            }
+        }
+        return new SolutionValue(fam.keeping(rel.basis())).normalized(member, value, span);
+    }
+
     @Override
     public String render(OutputFormat format) {
         if (solution instanceof Solution.Inconsistent bad && format != OutputFormat.JSON) {

@@ -46,6 +46,18 @@ public final class SolveBuiltins implements BuiltinProvider {
                         "vanishes")));
         r.register(Builtin.of("free_unknowns", 1, "free_unknowns(sol): the unknowns a family of solutions leaves free",
                 SolveBuiltins::freeUnknowns));
+        r.register(Builtin.of("function_basis", 2,
+                "function_basis(E, sol): linearly independent functions that E with sol moves through as its free unknowns vary",
+                (a, span) -> new ListValue(relations(a).basisFunctions().stream().map(f -> (Value) new ExprValue(f)).toList())));
+        r.register(Builtin.of("function_count", 2,
+                "function_count(E, sol): how many independent functions the free unknowns of sol move E through",
+                (a, span) -> Values.of(relations(a).dimension())));
+        r.register(Builtin.of("family", 2,
+                "family(E, sol): how many functions E with sol describes, and how many free unknowns only re-express them",
+                (a, span) -> new FamilyValue(relations(a))));
+        r.register(Builtin.of("system_size", 1,
+                "system_size(sol): {unknowns, equations} of the linear system the solve built",
+                SolveBuiltins::systemSize));
         r.setSolver(SolveBuiltins::solve);
     }
 
@@ -169,6 +181,29 @@ public final class SolveBuiltins implements BuiltinProvider {
         }
         List<String> free = sv.solution() instanceof Solution.Family f ? f.free() : List.of();
         return new ListValue(free.stream().map(n -> (Value) new ExprValue(Expression.collectedVariable(n))).toList());
+    }
+
+    private static Value systemSize(Arguments a, Span span) {
+        if (!(a.get(0) instanceof SolutionValue sv) || sv.figures() == null) {
+            throw new ContourException("system_size takes the result of a solve", a.spanOf(0));
+        }
+        return new ListValue(List.of(Values.of(sv.figures().unknowns()), Values.of(sv.figures().equations())));
+    }
+
+    /** The directions of E with sol along sol's free unknowns, separated exactly. */
+    private static FunctionRelations.Result relations(Arguments a) {
+        if (!(a.get(1) instanceof SolutionValue sv)) {
+            throw new ContourException(a.function() + " takes a solution second, not " + Values.describe(a.get(1)), a.spanOf(1));
+        }
+        if (sv.solution() instanceof Solution.Inconsistent) {
+            throw new ContourException("the solution is empty: the conditions conflict", a.spanOf(1));
+        }
+        List<String> free = sv.solution() instanceof Solution.Family f ? f.free() : List.of();
+        try {
+            return FunctionRelations.of(sv.solution().substituteInto(a.expression(0)), free);
+        } catch (ContourException x) {
+            throw x.at(a.spanOf(0));
+        }
     }
 
     private static Expression expression(Value v, Span span) {

@@ -25,9 +25,9 @@ import java.util.Map;
  * The interpreter's side of a sweep: runs the script for one tuple in a fresh interpreter, the
  * tuple's values bound first as if by {@code let}, and turns the outcome into a {@link SweepRecord}.
  */
-final class TupleRunner {
+public final class TupleRunner {
     /** The file name the tuple's bindings are parsed under (it never appears in a located error of the script). */
-    static final String TUPLE_FILE = "<sweep tuple>";
+    public static final String TUPLE_FILE = "<sweep tuple>";
 
     private final Path script;
     private final String text;

@@ -1,5 +1,7 @@
 package dev.contour.eval;
 
+import dev.contour.bench.AnsatzSumBench;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;

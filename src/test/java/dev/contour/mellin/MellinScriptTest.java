@@ -35,7 +35,7 @@ class MellinScriptTest {
 
     /** The equal-weight reduced ansatz Mred with unknowns a[i,j,k] at weight p (physics-reference section 4). */
     private static String ansatz(int p) {
-        return dev.contour.eval.AnsatzSumBench.script(p);
+        return dev.contour.bench.AnsatzSumBench.script(p);
     }
 
     private String output() {

@@ -1,5 +1,7 @@
 package dev.contour.solve;
 
+import dev.contour.bench.SolveBench;
+
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 

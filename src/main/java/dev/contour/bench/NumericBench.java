@@ -1,4 +1,6 @@
-package dev.contour.numeric;
+package dev.contour.bench;
+
+import dev.contour.numeric.*;
 
 import java.io.PrintStream;
 import java.time.Duration;

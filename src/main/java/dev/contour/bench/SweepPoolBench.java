@@ -1,9 +1,11 @@
-package dev.contour.sweep;
+package dev.contour.bench;
 
 import dev.contour.cli.BenchRegistry;
+import dev.contour.sweep.SweepCommand;
+import dev.contour.sweep.TupleRunner;
 import dev.contour.eval.Interpreter;
 import dev.contour.eval.InterpreterOptions;
-import dev.contour.solve.SolveBench;
+
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
@@ -16,17 +18,17 @@ import java.util.Comparator;
 import java.util.stream.Stream;
 
 /**
- * The {@code sweep} benchmark: the equal-weight AdS5xS5 solve ({@code SolveBench}'s script with
+ * The {@code sweep-pool} benchmark: the equal-weight AdS5xS5 solve ({@code SolveBench}'s script with
  * p left to the sweep) for p = 2..P through {@code contour sweep} with one and two workers, against
  * the same runs one after another in this process. P is 40, or {@code CONTOUR_SWEEP_BENCH_TOP}.
  */
-public final class SweepBench implements BenchRegistry.Provider {
+public final class SweepPoolBench implements BenchRegistry.Provider {
     @Override
     public void register(BenchRegistry r) {
-        r.register(BenchRegistry.Workload.report("sweep",
+        r.register(BenchRegistry.Workload.report("sweep-pool",
                 "the equal-weight AdS5xS5 solve for p = 2..40 (CONTOUR_SWEEP_BENCH_TOP) through 'contour sweep' with"
                         + " --jobs 1 and 2, and in-process; per-tuple overhead",
-                SweepBench::run));
+                SweepPoolBench::run));
     }
 
     /** The solve script with p unbound: the sweep binds it. */

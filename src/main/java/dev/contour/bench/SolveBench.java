@@ -1,4 +1,6 @@
-package dev.contour.solve;
+package dev.contour.bench;
+
+import dev.contour.solve.*;
 
 import dev.contour.eval.BuiltinRegistry;
 import dev.contour.eval.Interpreter;
@@ -17,7 +19,7 @@ import java.nio.charset.StandardCharsets;
 public final class SolveBench {
     /** The derivation timed for weight p: the ansatz of the "ansatz-sum" workload, then the solve. */
     public static String script(int p) {
-        return dev.contour.eval.AnsatzSumBench.script(p)
+        return AnsatzSumBench.script(p)
                 + "let sol = solve supergravity_poles(ward(p)(Mred), p) for a\n"
                 + "show free_unknowns(sol)\n";
     }

@@ -1,4 +1,5 @@
-package dev.contour.numeric;
+package dev.contour.bench;
+
 
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -1,7 +1,11 @@
-package dev.contour.mellin;
+package dev.contour.bench;
+
 
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Polynomial;
+import dev.contour.mellin.AdS5S5;
+import dev.contour.mellin.PoleAnalysis;
+import dev.contour.mellin.ResiduePolynomiality;
 import org.junit.jupiter.api.Test;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;

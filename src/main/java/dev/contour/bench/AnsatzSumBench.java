@@ -1,4 +1,6 @@
-package dev.contour.eval;
+package dev.contour.bench;
+
+import dev.contour.eval.*;
 
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Monomial;

@@ -1,4 +1,5 @@
-package dev.contour.solve;
+package dev.contour.bench;
+
 
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
