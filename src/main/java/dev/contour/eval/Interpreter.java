@@ -1,5 +1,6 @@
 package dev.contour.eval;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
@@ -40,7 +41,7 @@ public final class Interpreter {
     private final Map<String, Boolean> variables = new HashMap<>();
     /** The statement that declared each unknown family: running it again (in a loop) declares it afresh. */
     private final Map<String, Stmt.Unknown> unknownDeclaredBy = new HashMap<>();
-    private final SessionLog log = new SessionLog();
+    private SessionLog log = new SessionLog();
     private final Set<Path> used = new HashSet<>();
     private Deque<Map<String, Value>> frames = new ArrayDeque<>();
     /** The loop variables in force, outermost first, shown beside output from inside loops. */
@@ -48,7 +49,6 @@ public final class Interpreter {
     private Path directory;
     private int fileDepth;
     private int callDepth;
-    private long deadline;
     private long loopIterations;
     private int passed;
     private int failed;
@@ -97,9 +97,24 @@ public final class Interpreter {
      * @throws ContourException with a span on bad input
      */
     public RunResult run(String sourceText, String fileName) {
+        return Cancellation.under(budget(), () -> runStatements(sourceText, fileName));
+    }
+
+    /**
+     * The stop token for one run: the caller's (so an interrupt or an outer budget reaches every
+     * loop below) with this session's time limit on top, if it has one.
+     */
+    private Cancellation.Token budget() {
+        Cancellation.Token token = Cancellation.current();
+        return options.limits().timed()
+                ? token.withDeadline(System.nanoTime() + options.limits().timeLimit().toNanos(),
+                        "the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms")
+                : token;
+    }
+
+    private RunResult runStatements(String sourceText, String fileName) {
         int passedBefore = passed;
         int failedBefore = failed;
-        deadline = options.limits().timed() ? System.nanoTime() + options.limits().timeLimit().toNanos() : Long.MAX_VALUE;
         loopIterations = 0;
         Path savedDirectory = directory;
         Deque<Map<String, Value>> savedFrames = frames;
@@ -110,6 +125,7 @@ public final class Interpreter {
             for (Stmt s : statements) {
                 try {
                     execute(s);
+                    record(s, sourceText);
                 } catch (StackOverflowError e) {
                     throw new ContourException("this statement nests too deeply to evaluate (a very long chain of"
                             + " operations: a sum over a range builds long sums without nesting)", s.span());
@@ -130,11 +146,41 @@ public final class Interpreter {
         return new RunResult(passed - passedBefore, failed - failedBefore);
     }
 
+    /**
+     * Logs a top-level statement that defines something, as its text, for {@link #definitionsAsScript}:
+     * the statement rather than its value, so a saved session re-runs as fast as it ran.
+     */
+    private void record(Stmt s, String sourceText) {
+        if (s instanceof Stmt.Vars v) {
+            log.add(SessionLog.Kind.VARS, null, "vars " + String.join(", ", v.names()) + (v.collected() ? " collected" : ""));
+        } else if (s instanceof Stmt.Let l) {
+            log.add(SessionLog.Kind.LET, l.name(), l.source());
+        } else if (s instanceof Stmt.Def d) {
+            log.add(SessionLog.Kind.OTHER, d.name(), d.source());
+        } else if (s instanceof Stmt.Unknown u) {
+            log.add(SessionLog.Kind.OTHER, u.name(), u.source());
+        } else if (s instanceof Stmt.Use u) {
+            log.add(SessionLog.Kind.USE, null, "use \"" + u.path().replace("\\", "\\\\").replace("\"", "\\\"") + "\"");
+        } else if (s instanceof Stmt.For || s instanceof Stmt.Rule) {
+            log.add(SessionLog.Kind.OTHER, null, textOf(s.span(), sourceText));
+        }
+        // show, check and derive define nothing
+    }
+
+    /** The text a statement's span covers (spans count code points, as the parser does). */
+    private static String textOf(Span span, String text) {
+        int at = 0;
+        for (int line = 1; line < span.line(); line++) {
+            at = text.indexOf('\n', at) + 1;
+        }
+        int start = text.offsetByCodePoints(at, span.column() - 1);
+        return text.substring(start, text.offsetByCodePoints(start, span.length()));
+    }
+
     /** Evaluates one expression in this session, without printing. */
     public Value evaluate(String expressionText, String fileName) {
-        deadline = options.limits().timed() ? System.nanoTime() + options.limits().timeLimit().toNanos() : Long.MAX_VALUE;
         try {
-            return eval(ScriptParser.parseExpression(expressionText, fileName));
+            return Cancellation.under(budget(), () -> eval(ScriptParser.parseExpression(expressionText, fileName)));
         } catch (StackOverflowError e) {
             throw new ContourException("the expression nests too deeply to evaluate");
         } finally {
@@ -155,6 +201,63 @@ public final class Interpreter {
         return v != null ? v : registry.lookup(name).orElse(null);
     }
 
+    /**
+     * What a session has defined at one moment: names, variables, unknown families, libraries
+     * loaded, rules and the definitions log. Values are immutable, so a snapshot is a set of
+     * shallow copies, cheap whatever the size of the values.
+     */
+    public static final class Snapshot {
+        private final Map<String, Value> globals;
+        private final Map<String, Boolean> variables;
+        private final Map<String, Stmt.Unknown> unknownDeclaredBy;
+        private final SessionLog log;
+        private final Set<Path> used;
+        private final Object rules;
+        private final int passed;
+        private final int failed;
+
+        private Snapshot(Interpreter i) {
+            globals = new LinkedHashMap<>(i.globals);
+            variables = new HashMap<>(i.variables);
+            unknownDeclaredBy = new HashMap<>(i.unknownDeclaredBy);
+            log = i.log.copy();
+            used = new HashSet<>(i.used);
+            rules = i.registry.hasRuleSink() ? i.registry.ruleSink(null).state() : null;
+            passed = i.passed;
+            failed = i.failed;
+        }
+    }
+
+    /** The session's definitions now, to {@link #restore} after an input that was stopped half way. */
+    public Snapshot snapshot() {
+        return new Snapshot(this);
+    }
+
+    /**
+     * Makes this session's definitions those of the snapshot (taken from this interpreter or from
+     * another one with the same built-ins), dropping whatever was defined since.
+     */
+    public void restore(Snapshot s) {
+        globals.clear();
+        globals.putAll(s.globals);
+        variables.clear();
+        variables.putAll(s.variables);
+        unknownDeclaredBy.clear();
+        unknownDeclaredBy.putAll(s.unknownDeclaredBy);
+        log = s.log.copy();
+        used.clear();
+        used.addAll(s.used);
+        if (registry.hasRuleSink()) {
+            registry.ruleSink(null).restore(s.rules);
+        }
+        passed = s.passed;
+        failed = s.failed;
+        frames = new ArrayDeque<>();
+        loopContext.clear();
+        fileDepth = 0;
+        callDepth = 0;
+    }
+
     /** This session's definitions as script text that rebuilds them (for saving a REPL session). */
     public String definitionsAsScript() {
         return log.asScript();
@@ -168,22 +271,10 @@ public final class Interpreter {
             for (String name : v.names()) {
                 declareVariable(name, v.collected(), v.span());
             }
-            if (fileDepth == 0) {
-                log.add(SessionLog.Kind.VARS, null, "vars " + String.join(", ", v.names()) + (v.collected() ? " collected" : ""));
-            }
         } else if (s instanceof Stmt.Let l) {
             checkFreeName(l.name(), l.span(), true);
             Value value = eval(l.value());
             globals.put(l.name(), value);
-            if (fileDepth == 0) {
-                if (Display.hasScriptForm(value)) {
-                    log.addLazily(SessionLog.Kind.LET, l.name(), () -> "let " + l.name() + " = " + display.scriptText(value));
-                } else {
-                    // no script form (a solution, say): saved as the statement that computed it, which
-                    // refers to earlier names, so those are kept (an OTHER entry is never skipped over)
-                    log.add(SessionLog.Kind.OTHER, l.name(), l.source());
-                }
-            }
         } else if (s instanceof Stmt.Def d) {
             checkFreeName(d.name(), d.span(), true);
             java.util.Set<String> seenParameters = new java.util.HashSet<>();
@@ -195,14 +286,8 @@ public final class Interpreter {
             Map<String, Value> captured = new HashMap<>();
             frames.descendingIterator().forEachRemaining(captured::putAll); // inner frames win
             globals.put(d.name(), new FunctionValue(d.name(), d.parameters(), d.body(), d.source(), captured));
-            if (fileDepth == 0) {
-                log.add(SessionLog.Kind.OTHER, d.name(), d.source());
-            }
         } else if (s instanceof Stmt.Unknown u) {
             declareUnknowns(u);
-            if (fileDepth == 0) {
-                log.add(SessionLog.Kind.OTHER, u.name(), u.source());
-            }
         } else if (s instanceof Stmt.Use u) {
             use(u);
         } else if (s instanceof Stmt.Show sh) {
@@ -363,9 +448,6 @@ public final class Interpreter {
             fileDepth--;
             directory = savedDirectory;
             frames = savedFrames;
-        }
-        if (fileDepth == 0) {
-            log.add(SessionLog.Kind.OTHER, null, "use \"" + u.path().replace("\\", "\\\\").replace("\"", "\\\"") + "\"");
         }
     }
 
@@ -895,12 +977,11 @@ public final class Interpreter {
     }
 
     private void tick(Span span) {
-        // The REPL stops a running input by interrupting its thread; honour it at statement and loop boundaries.
-        if (Thread.interrupted()) {
-            throw new ContourException("interrupted", span);
-        }
-        if (deadline != Long.MAX_VALUE && System.nanoTime() > deadline) {
-            throw new ContourException("the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms", span);
+        // An interrupt (the REPL's Ctrl-C) or a passed time limit stops the run here and in every long loop below.
+        try {
+            Cancellation.check();
+        } catch (Cancellation.Stop stop) {
+            throw stop.at(span);
         }
     }
 

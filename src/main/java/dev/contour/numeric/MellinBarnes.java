@@ -1,5 +1,6 @@
 package dev.contour.numeric;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import java.math.BigDecimal;
 import java.math.MathContext;
@@ -218,6 +219,8 @@ public final class MellinBarnes {
         volatile Apcomplex best;
         private ExecutorService pool;
         private volatile boolean finished;
+        /** The caller's stop token, checked at every evaluation on either thread. */
+        private final Cancellation.Token stop = Cancellation.current();
 
         Run(int digits, IntegrationLimits limits, String contour) {
             if (digits < 1 || digits > 1000) {
@@ -378,7 +381,7 @@ public final class MellinBarnes {
                 total.addAll(upper.get());
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
-                throw new ContourException("integration interrupted");
+                throw new Cancellation.Stop("interrupted", null);
             } catch (ExecutionException e) {
                 if (e.getCause() instanceof RuntimeException r) {
                     throw r;
@@ -441,6 +444,7 @@ public final class MellinBarnes {
             if (finished) {
                 throw new ContourException("integration abandoned");
             }
+            stop.check();
             long n = evaluations.incrementAndGet();
             if (n > limits.maxEvaluations()) {
                 throw notReached("within " + limits.maxEvaluations() + " integrand evaluations");

@@ -111,7 +111,7 @@ class TerminalReplTest {
                 t.raise(Terminal.Signal.INT); // again, in case the first came before the work began
                 Thread.sleep(100);
             }
-            t.awaitText("(restoring the session from its 2 earlier inputs)\n");
+            t.awaitText("interrupted\n");
             t.awaitText("contour 4> ");
             t.type("show kept\n");
             t.awaitText("kept = s + t\n");
