@@ -24,7 +24,7 @@ import org.junit.jupiter.api.Test;
  * helper thread working.
  */
 class CancellationTest {
-    /** Far longer than the bound below on any machine: a p = 384 solve (73,920 unknowns) runs for many seconds. */
+    /** Far longer than the bound below on any machine: a p = 384 solve (73,536 unknowns) runs for many seconds. */
     private static final String LONG_SOLVE = dev.contour.eval.AnsatzSumBench.script(384) + """
             let sol = solve supergravity_poles(ward(p)(Mred), p) for a
             """;
