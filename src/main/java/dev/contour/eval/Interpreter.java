@@ -43,6 +43,8 @@ public final class Interpreter {
     private final Map<String, Stmt.Unknown> unknownDeclaredBy = new HashMap<>();
     private SessionLog log = new SessionLog();
     private final Set<Path> used = new HashSet<>();
+    /** The files being run or loaded right now, outermost first: a {@code use} of one of them is a cycle. */
+    private final List<Path> loading = new ArrayList<>();
     private Deque<Map<String, Value>> frames = new ArrayDeque<>();
     /** The loop variables in force, outermost first, shown beside output from inside loops. */
     private final List<String> loopContext = new ArrayList<>();
@@ -118,6 +120,10 @@ public final class Interpreter {
         loopIterations = 0;
         Path savedDirectory = directory;
         Deque<Map<String, Value>> savedFrames = frames;
+        Path self = fileOf(fileName);
+        if (self != null) {
+            loading.add(self);
+        }
         try {
             directory = directoryOf(fileName);
             List<Stmt> statements = ScriptParser.parseScript(sourceText, fileName);
@@ -142,6 +148,9 @@ public final class Interpreter {
             directory = savedDirectory;
             frames = savedFrames;
             callDepth = 0;
+            if (self != null) {
+                loading.remove(loading.size() - 1);
+            }
         }
         return new RunResult(passed - passedBefore, failed - failedBefore);
     }
@@ -256,6 +265,7 @@ public final class Interpreter {
         loopContext.clear();
         fileDepth = 0;
         callDepth = 0;
+        loading.clear();
     }
 
     /** This session's definitions as script text that rebuilds them (for saving a REPL session). */
@@ -426,7 +436,20 @@ public final class Interpreter {
 
     private void use(Stmt.Use u) {
         Path file = resolve(u.path(), u.span());
-        if (!used.add(file.toAbsolutePath().normalize())) {
+        Path key = file.toAbsolutePath().normalize();
+        int open = loading.indexOf(key);
+        if (open >= 0) {
+            List<String> chain = new ArrayList<>();
+            for (Path p : loading.subList(open, loading.size())) {
+                chain.add(String.valueOf(p.getFileName()));
+            }
+            chain.add(String.valueOf(key.getFileName()));
+            throw new ContourException("'use' cycle: " + (chain.size() == 2 ? chain.get(0) + " uses itself"
+                    : String.join(" uses ", chain.subList(0, 2)) + chain.subList(2, chain.size()).stream()
+                            .map(n -> ", which uses " + n).reduce("", String::concat))
+                    + " (a file cannot load a file that is still loading it; move what both need into a third file)", u.span());
+        }
+        if (!used.add(key)) {
             return; // each library loads once per session
         }
         String text;
@@ -438,6 +461,7 @@ public final class Interpreter {
         Path savedDirectory = directory;
         Deque<Map<String, Value>> savedFrames = frames;
         fileDepth++;
+        loading.add(key);
         try {
             directory = file.toAbsolutePath().getParent();
             frames = new ArrayDeque<>();
@@ -448,6 +472,7 @@ public final class Interpreter {
             fileDepth--;
             directory = savedDirectory;
             frames = savedFrames;
+            loading.remove(loading.size() - 1);
         }
     }
 
@@ -475,6 +500,19 @@ public final class Interpreter {
         }
         throw new ContourException("cannot find '" + name + "' (looked in " + String.join(", ",
                 tried.stream().map(p -> p.getParent() == null ? "." : p.getParent().toString()).distinct().toList()) + ")", span);
+    }
+
+    /** The script's own file, when the name is a file on disk (not {@code <repl>} or a test's label). */
+    private static Path fileOf(String fileName) {
+        if (fileName == null) {
+            return null;
+        }
+        try {
+            Path p = Path.of(fileName).toAbsolutePath().normalize();
+            return Files.isRegularFile(p) ? p : null;
+        } catch (RuntimeException e) {
+            return null;
+        }
     }
 
     private static Path directoryOf(String fileName) {
