@@ -2,6 +2,7 @@ package dev.contour.eval;
 
 import dev.contour.Cancellation;
 import dev.contour.ContourException;
+import dev.contour.ProgressLine;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Rational;
@@ -326,9 +327,15 @@ public final class Interpreter {
             Map<String, Value> frame = new HashMap<>();
             frames.push(frame);
             loopContext.add("");
+            // a loop over long work (solves, say) says where it is: in place on a terminal, as occasional lines in a log
+            ProgressLine progress = ProgressLine.standardError();
+            int done = 0;
             try {
                 for (Value m : members) {
-                    loopContext.set(loopContext.size() - 1, f.variable() + " = " + Display.plain(m, false));
+                    String current = f.variable() + " = " + Display.plain(m, false);
+                    String count = " (" + ++done + " of " + members.size() + ")";
+                    progress.update(() -> "for " + current + count);
+                    loopContext.set(loopContext.size() - 1, current);
                     if (++loopIterations > options.limits().maxLoopIterations()) {
                         throw new ContourException("more than " + options.limits().maxLoopIterations()
                                 + " loop iterations in one run", f.span());
@@ -339,6 +346,7 @@ public final class Interpreter {
                     }
                 }
             } finally {
+                progress.close();
                 frames.pop();
                 loopContext.remove(loopContext.size() - 1);
             }

@@ -2,6 +2,7 @@ package dev.contour.numeric;
 
 import dev.contour.Cancellation;
 import dev.contour.ContourException;
+import dev.contour.ProgressLine;
 import java.math.BigDecimal;
 import java.math.MathContext;
 import java.math.RoundingMode;
@@ -207,7 +208,7 @@ public final class MellinBarnes {
         final IntegrationLimits limits;
         final String contour;
         final Apfloat twoPi;
-        final Progress progress;
+        final ProgressLine progress;
         final GridMemo memo;
         final AtomicLong evaluations = new AtomicLong();
         double cutDigits;
@@ -232,7 +233,7 @@ public final class MellinBarnes {
             this.contour = contour;
             this.cutDigits = digits + CUT_EXTRA_DIGITS;
             this.twoPi = ApfloatMath.pi(wp).multiply(new Apint(2));
-            this.progress = new Progress(limits.progress());
+            this.progress = ProgressLine.on(limits.progress());
             this.memo = new GridMemo(wp);
         }
 
@@ -253,7 +254,7 @@ public final class MellinBarnes {
                 return memo.run(() -> refine(levelSum));
             } finally {
                 finished = true; // stops the other thread at its next evaluation if this one failed
-                progress.finish();
+                progress.close();
                 if (pool != null) {
                     pool.shutdownNow();
                 }
