@@ -853,6 +853,9 @@ public final class Interpreter {
             }
             List<Value> out = new ArrayList<>();
             for (long m : r.members()) {
+                if ((out.size() & 1023) == 0) {
+                    tick(span);
+                }
                 out.add(Values.of(m));
             }
             return out;
