@@ -121,7 +121,9 @@ public final class Cancellation {
 
     /**
      * Throws {@link Stop} if the current thread was interrupted or the token in force says stop.
-     * Cheap enough for any loop whose steps take a microsecond or more.
+     * Cheap enough for any loop whose steps take a microsecond or more. Under a token, an interrupt
+     * is moved onto the token (the thread's flag is cleared, as an {@link InterruptedException}
+     * would clear it); with no token the flag is left for the caller to see.
      */
     public static void check() {
         Token t = CURRENT.get();
@@ -131,13 +133,15 @@ public final class Cancellation {
             }
             return;
         }
-        if (Thread.currentThread().isInterrupted()) {
+        if (Thread.interrupted()) {
+            // the request is taken over by the token (sticky, and seen by helper threads), so a later
+            // run on this thread, under a new token, starts afresh as it did before
             t.cancel("interrupted");
         }
         t.check();
     }
 
-    /** Whether {@link #check()} would throw now; progress printers use it to fall silent. */
+    /** Whether {@link #check()} would throw now (without throwing or clearing anything). */
     public static boolean stopping() {
         Token t = CURRENT.get();
         return Thread.currentThread().isInterrupted() || t != null && t.stopping();
