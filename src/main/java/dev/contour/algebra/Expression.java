@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import java.util.Collections;
 import java.util.HashMap;
@@ -83,6 +84,7 @@ public final class Expression {
         Map.Entry<Monomial, RationalFunction>[] es = new Map.Entry[terms.size()];
         int n = 0;
         for (Map.Entry<Monomial, RationalFunction> e : terms.entrySet()) {
+            Cancellation.check();
             if (!e.getValue().isZero()) {
                 es[n++] = Map.entry(e.getKey(), e.getValue());
             }
@@ -191,6 +193,7 @@ public final class Expression {
         }
         boolean conflict = false;
         for (RationalFunction c : terms.values()) {
+            Cancellation.check();
             if (intersects(c.variables(), names)) {
                 conflict = true;
                 break;
@@ -201,6 +204,7 @@ public final class Expression {
         }
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Cancellation.check();
             RationalFunction c = t.getValue();
             List<String> hit = c.variables().stream().filter(names::contains).toList();
             if (hit.isEmpty()) {
@@ -236,6 +240,7 @@ public final class Expression {
     /** Whether a monomial of this value has the collected variable {@code name}. */
     public boolean collects(String name) {
         for (Monomial m : terms.keySet()) {
+            Cancellation.check();
             if (m.exponent(name) != 0) {
                 return true;
             }
@@ -312,6 +317,7 @@ public final class Expression {
         Expression b = o.expandedFor(names);
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>(a.terms);
         for (Map.Entry<Monomial, RationalFunction> t : b.terms.entrySet()) {
+            Cancellation.check();
             accumulate(out, t.getKey(), t.getValue());
         }
         return new Expression(out);
@@ -353,6 +359,7 @@ public final class Expression {
         }
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         for (Map.Entry<Monomial, RationalFunction> x : a.terms.entrySet()) {
+            Cancellation.check();
             for (Map.Entry<Monomial, RationalFunction> y : b.terms.entrySet()) {
                 accumulate(out, x.getKey().multiply(y.getKey()), x.getValue().multiply(y.getValue()));
             }
@@ -367,6 +374,7 @@ public final class Expression {
     public Expression negate() {
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Cancellation.check();
             out.put(t.getKey(), t.getValue().negate());
         }
         return new Expression(out);
@@ -423,6 +431,7 @@ public final class Expression {
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         Map<String, Map<Integer, Expression>> powers = new HashMap<>();
         for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Cancellation.check();
             Expression term = substituteCoefficient(t.getValue(), values);
             for (Map.Entry<String, Integer> v : t.getKey().exponents().entrySet()) {
                 Expression base = values.get(v.getKey());
@@ -496,6 +505,7 @@ public final class Expression {
     /** Whether a monomial of this value has one of the names (without building the set of all names). */
     private boolean mentionsCollected(Set<String> names) {
         for (Monomial m : terms.keySet()) {
+            Cancellation.check();
             for (String v : m.names()) {
                 if (names.contains(v)) {
                     return true;
@@ -512,6 +522,7 @@ public final class Expression {
     public Expression evaluatePartially(Map<String, Rational> point) {
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Cancellation.check();
             Rational factor = Rational.ONE;
             Map<String, Integer> rest = new HashMap<>();
             for (Map.Entry<String, Integer> v : t.getKey().exponents().entrySet()) {
@@ -543,6 +554,7 @@ public final class Expression {
         if (c == null) {
             TreeSet<String> s = new TreeSet<>();
             for (Monomial m : terms.keySet()) {
+                Cancellation.check();
                 Collections.addAll(s, m.names());
             }
             c = Collections.unmodifiableSortedSet(s);
@@ -554,6 +566,7 @@ public final class Expression {
     public SortedSet<String> innerVariables() {
         TreeSet<String> s = new TreeSet<>();
         for (RationalFunction c : terms.values()) {
+            Cancellation.check();
             s.addAll(c.variables());
         }
         return Collections.unmodifiableSortedSet(s);
@@ -590,6 +603,7 @@ public final class Expression {
     public boolean isCanonical() {
         Set<String> collected = collectedVariables();
         for (Map.Entry<Monomial, RationalFunction> t : terms.entrySet()) {
+            Cancellation.check();
             RationalFunction c = t.getValue();
             if (c.isZero() || !c.isCanonical() || intersects(c.variables(), collected)) {
                 return false;

@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.List;
@@ -66,7 +67,9 @@ final class KroneckerProduct {
         }
         BigInteger x = pack(a, ia, weight, slots, width);
         BigInteger y = pack(b, ib, weight, slots, width);
+        Cancellation.check();
         BigInteger z = x.multiply(y);
+        Cancellation.check();
         BigInteger den = da.multiply(db);
         return unpack(z, u, radix, slots, width, den);
     }

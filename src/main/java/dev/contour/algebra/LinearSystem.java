@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import java.util.ArrayList;
 import java.util.BitSet;
@@ -156,6 +157,7 @@ public final class LinearSystem {
     private Object eliminate(List<Integer> which) {
         TreeMap<Integer, Row> pivots = new TreeMap<>();
         for (int i : which) {
+            Cancellation.check();
             BitSet from = new BitSet();
             from.set(i);
             Row r = new Row(new TreeMap<>(rowCoefficients.get(i)), rowRhs.get(i), from);

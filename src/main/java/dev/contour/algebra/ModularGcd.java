@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import java.math.BigInteger;
 import java.util.Arrays;
 import java.util.Random;
@@ -61,6 +62,7 @@ final class ModularGcd {
         int degree = Integer.MAX_VALUE;
         long p = (1L << 31) - 1;
         for (int prime = 0; prime < MAX_PRIMES; prime++) {
+            Cancellation.check();
             p = ModularPoly.previousPrime(p);
             long[] ca = residues(a.coeffs, p);
             long[] cb = residues(b.coeffs, p);
@@ -184,6 +186,9 @@ final class ModularGcd {
         int[] idx = new int[others.length];
         int degree = Integer.MAX_VALUE;
         for (int g = 0; g < grid; g++) {
+            if ((g & 255) == 0) {
+                Cancellation.check();
+            }
             long[] ua = evaluate(ea, ca, degA, xi, others, pow, idx, p);
             long[] ub = evaluate(eb, cb, degB, xi, others, pow, idx, p);
             long gv = evaluate(eg, cg, 0, xi, others, pow, idx, p)[0];

@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -154,6 +155,7 @@ final class ModularLinearSolver {
         double modBits = 0;
         long p = PRIME_BOUND;
         while (true) {
+            Cancellation.check();
             p = ModularPoly.previousPrime(p);
             Image img = image(p);
             if (img == null) {
@@ -359,6 +361,9 @@ final class ModularLinearSolver {
         // VERIFY over Q (in integers, times D != 0): A (D x) = D b and A (D v_f) = 0 for every original row.
         BigInteger[] acc = new BigInteger[nf];
         for (int i = 0; i < m; i++) {
+            if ((i & 63) == 0) {
+                Cancellation.check();
+            }
             BigInteger s = rhs[i].multiply(det).negate();
             Arrays.fill(acc, BigInteger.ZERO);
             for (int j = 0; j < cols[i].length; j++) {
@@ -433,6 +438,9 @@ final class ModularLinearSolver {
         int rank = 0;
         long det = 1;
         for (int i = 0; i < m; i++) {
+            if ((i & 63) == 0) {
+                Cancellation.check();
+            }
             int[] c = cols[i];
             if (c.length == 0) {
                 if (rhsResidue(i, p) != 0) {

@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -359,6 +360,7 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (isConstant()) {
             return o.multiply(coeffs[0]);
         }
+        Cancellation.check(); // a chain of products (a power, a big expansion) stops between factors
         String[] u = unionVars(vars, o.vars);
         int[][] a = expsOver(u);
         int[][] b = o.expsOver(u);
@@ -476,6 +478,7 @@ public final class Polynomial implements Comparable<Polynomial> {
         if (bits < 1 || maxDeg >= (1L << bits)) {
             HashMap<Key, Rational> acc = new HashMap<>(a.length * b.length * 2);
             for (int i = 0; i < a.length; i++) {
+                Cancellation.check();
                 for (int j = 0; j < b.length; j++) {
                     acc.merge(new Key(shifted(a[i], b[j], n)), ca[i].multiply(cb[j]), Rational::add);
                 }
@@ -495,6 +498,7 @@ public final class Polynomial implements Comparable<Polynomial> {
         int shift = 64 - Integer.numberOfTrailingZeros(cap);
         int count = 0;
         for (int i = 0; i < a.length; i++) {
+            Cancellation.check();
             for (int j = 0; j < b.length; j++) {
                 long key = pa[i] + pb[j];
                 int h = (int) ((key * 0x9E3779B97F4A7C15L) >>> shift);

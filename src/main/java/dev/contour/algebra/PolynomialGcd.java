@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import java.util.Arrays;
 
 /**
@@ -86,6 +87,7 @@ public final class PolynomialGcd {
             q = t;
         }
         while (true) {
+            Cancellation.check();
             Polynomial[] r = pseudoRemainder(p, q);
             if (r.length == 0) {
                 break;

@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -335,6 +336,7 @@ public final class RationalFunction {
         if (to - from == 1) {
             return a[from];
         }
+        Cancellation.check();
         int mid = (from + to) >>> 1;
         return sum(a, from, mid).add(sum(a, mid, to));
     }

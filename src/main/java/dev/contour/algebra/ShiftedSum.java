@@ -1,5 +1,6 @@
 package dev.contour.algebra;
 
+import dev.contour.Cancellation;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.HashMap;
@@ -114,8 +115,10 @@ public final class ShiftedSum {
     public static Expression expandAt(List<Block> blocks, Expression argument) {
         Map<Monomial, List<RationalFunction>> parts = new HashMap<>();
         for (Block b : blocks) {
+            Cancellation.check();
             Expression moved = b.shift().isEmpty() ? argument : argument.substituteLinear(b.substitution());
             for (Map.Entry<Monomial, RationalFunction> x : b.coefficient().terms().entrySet()) {
+                Cancellation.check();
                 for (Map.Entry<Monomial, RationalFunction> y : moved.terms().entrySet()) {
                     parts.computeIfAbsent(x.getKey().multiply(y.getKey()), k -> new ArrayList<>())
                             .add(x.getValue().multiply(y.getValue()));
@@ -123,7 +126,10 @@ public final class ShiftedSum {
             }
         }
         Map<Monomial, RationalFunction> out = new HashMap<>();
-        parts.forEach((m, list) -> out.put(m, list.size() == 1 ? list.get(0) : RationalFunction.sum(list)));
+        parts.forEach((m, list) -> {
+            Cancellation.check();
+            out.put(m, list.size() == 1 ? list.get(0) : RationalFunction.sum(list));
+        });
         return Expression.of(out);
     }
 }

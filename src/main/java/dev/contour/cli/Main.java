@@ -48,6 +48,7 @@ public final class Main {
               -V, --version    the version
 
             exit status: 0 all checks held, 1 a check failed, 2 bad input or usage
+                         (repl on a terminal: 0 when left; piped: as for run)
             """;
 
     private Main() { }

@@ -68,6 +68,11 @@ public final class BuiltinRegistry {
         return this;
     }
 
+    /** Whether a rule sink is registered (the rewriting engine is in this build). */
+    public boolean hasRuleSink() {
+        return ruleSink != null;
+    }
+
     public RuleSink ruleSink(Span span) {
         if (ruleSink == null) {
             throw new ContourException("'rule' statements need the rewriting engine, which is not in this build", span);

@@ -1,5 +1,6 @@
 package dev.contour.eval;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Rational;
@@ -112,6 +113,9 @@ final class IndexSetEnumeration {
         }
         List<Long> domain = domains.get(depth);
         for (long v = l[depth]; v <= h[depth]; v++) {
+            if ((work[0] & 4095) == 0) {
+                Cancellation.check();
+            }
             if (++work[0] > 20 * maxSize + 1_000) {
                 throw new ContourException("the index set is too large to list (past " + maxSize + " members)", null);
             }

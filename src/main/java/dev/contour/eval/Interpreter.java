@@ -1,6 +1,8 @@
 package dev.contour.eval;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
+import dev.contour.ProgressLine;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Rational;
@@ -40,15 +42,16 @@ public final class Interpreter {
     private final Map<String, Boolean> variables = new HashMap<>();
     /** The statement that declared each unknown family: running it again (in a loop) declares it afresh. */
     private final Map<String, Stmt.Unknown> unknownDeclaredBy = new HashMap<>();
-    private final SessionLog log = new SessionLog();
+    private SessionLog log = new SessionLog();
     private final Set<Path> used = new HashSet<>();
+    /** The files being run or loaded right now, outermost first: a {@code use} of one of them is a cycle. */
+    private final List<Path> loading = new ArrayList<>();
     private Deque<Map<String, Value>> frames = new ArrayDeque<>();
     /** The loop variables in force, outermost first, shown beside output from inside loops. */
     private final List<String> loopContext = new ArrayList<>();
     private Path directory;
     private int fileDepth;
     private int callDepth;
-    private long deadline;
     private long loopIterations;
     private int passed;
     private int failed;
@@ -103,12 +106,31 @@ public final class Interpreter {
      * @throws ContourException with a span on bad input
      */
     public RunResult run(String sourceText, String fileName) {
+        return Cancellation.under(budget(), () -> runStatements(sourceText, fileName));
+    }
+
+    /**
+     * The stop token for one run: the caller's (so an interrupt or an outer budget reaches every
+     * loop below) with this session's time limit on top, if it has one.
+     */
+    private Cancellation.Token budget() {
+        Cancellation.Token token = Cancellation.current();
+        return options.limits().timed()
+                ? token.withDeadline(System.nanoTime() + options.limits().timeLimit().toNanos(),
+                        "the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms")
+                : token;
+    }
+
+    private RunResult runStatements(String sourceText, String fileName) {
         int passedBefore = passed;
         int failedBefore = failed;
-        deadline = options.limits().timed() ? System.nanoTime() + options.limits().timeLimit().toNanos() : Long.MAX_VALUE;
         loopIterations = 0;
         Path savedDirectory = directory;
         Deque<Map<String, Value>> savedFrames = frames;
+        Path self = fileOf(fileName);
+        if (self != null) {
+            loading.add(self);
+        }
         try {
             directory = directoryOf(fileName);
             List<Stmt> statements = ScriptParser.parseScript(sourceText, fileName);
@@ -116,6 +138,7 @@ public final class Interpreter {
             for (Stmt s : statements) {
                 try {
                     execute(s);
+                    record(s, sourceText);
                 } catch (StackOverflowError e) {
                     throw new ContourException("this statement nests too deeply to evaluate (a very long chain of"
                             + " operations: a sum over a range builds long sums without nesting)", s.span());
@@ -132,15 +155,48 @@ public final class Interpreter {
             directory = savedDirectory;
             frames = savedFrames;
             callDepth = 0;
+            if (self != null) {
+                loading.remove(loading.size() - 1);
+            }
         }
         return new RunResult(passed - passedBefore, failed - failedBefore);
     }
 
+    /**
+     * Logs a top-level statement that defines something, as its text, for {@link #definitionsAsScript}:
+     * the statement rather than its value, so a saved session re-runs as fast as it ran.
+     */
+    private void record(Stmt s, String sourceText) {
+        if (s instanceof Stmt.Vars v) {
+            log.add(SessionLog.Kind.VARS, null, "vars " + String.join(", ", v.names()) + (v.collected() ? " collected" : ""));
+        } else if (s instanceof Stmt.Let l) {
+            log.add(SessionLog.Kind.LET, l.name(), l.source());
+        } else if (s instanceof Stmt.Def d) {
+            log.add(SessionLog.Kind.OTHER, d.name(), d.source());
+        } else if (s instanceof Stmt.Unknown u) {
+            log.add(SessionLog.Kind.OTHER, u.name(), u.source());
+        } else if (s instanceof Stmt.Use u) {
+            log.add(SessionLog.Kind.USE, null, "use \"" + u.path().replace("\\", "\\\\").replace("\"", "\\\"") + "\"");
+        } else if (s instanceof Stmt.For || s instanceof Stmt.Rule) {
+            log.add(SessionLog.Kind.OTHER, null, textOf(s.span(), sourceText));
+        }
+        // show, check and derive define nothing
+    }
+
+    /** The text a statement's span covers (spans count code points, as the parser does). */
+    private static String textOf(Span span, String text) {
+        int at = 0;
+        for (int line = 1; line < span.line(); line++) {
+            at = text.indexOf('\n', at) + 1;
+        }
+        int start = text.offsetByCodePoints(at, span.column() - 1);
+        return text.substring(start, text.offsetByCodePoints(start, span.length()));
+    }
+
     /** Evaluates one expression in this session, without printing. */
     public Value evaluate(String expressionText, String fileName) {
-        deadline = options.limits().timed() ? System.nanoTime() + options.limits().timeLimit().toNanos() : Long.MAX_VALUE;
         try {
-            return eval(ScriptParser.parseExpression(expressionText, fileName));
+            return Cancellation.under(budget(), () -> eval(ScriptParser.parseExpression(expressionText, fileName)));
         } catch (StackOverflowError e) {
             throw new ContourException("the expression nests too deeply to evaluate");
         } finally {
@@ -179,6 +235,64 @@ public final class Interpreter {
         return v != null ? v : registry.lookup(name).orElse(null);
     }
 
+    /**
+     * What a session has defined at one moment: names, variables, unknown families, libraries
+     * loaded, rules and the definitions log. Values are immutable, so a snapshot is a set of
+     * shallow copies, cheap whatever the size of the values.
+     */
+    public static final class Snapshot {
+        private final Map<String, Value> globals;
+        private final Map<String, Boolean> variables;
+        private final Map<String, Stmt.Unknown> unknownDeclaredBy;
+        private final SessionLog log;
+        private final Set<Path> used;
+        private final Object rules;
+        private final int passed;
+        private final int failed;
+
+        private Snapshot(Interpreter i) {
+            globals = new LinkedHashMap<>(i.globals);
+            variables = new HashMap<>(i.variables);
+            unknownDeclaredBy = new HashMap<>(i.unknownDeclaredBy);
+            log = i.log.copy();
+            used = new HashSet<>(i.used);
+            rules = i.registry.hasRuleSink() ? i.registry.ruleSink(null).state() : null;
+            passed = i.passed;
+            failed = i.failed;
+        }
+    }
+
+    /** The session's definitions now, to {@link #restore} after an input that was stopped half way. */
+    public Snapshot snapshot() {
+        return new Snapshot(this);
+    }
+
+    /**
+     * Makes this session's definitions those of the snapshot (taken from this interpreter or from
+     * another one with the same built-ins), dropping whatever was defined since.
+     */
+    public void restore(Snapshot s) {
+        globals.clear();
+        globals.putAll(s.globals);
+        variables.clear();
+        variables.putAll(s.variables);
+        unknownDeclaredBy.clear();
+        unknownDeclaredBy.putAll(s.unknownDeclaredBy);
+        log = s.log.copy();
+        used.clear();
+        used.addAll(s.used);
+        if (registry.hasRuleSink()) {
+            registry.ruleSink(null).restore(s.rules);
+        }
+        passed = s.passed;
+        failed = s.failed;
+        frames = new ArrayDeque<>();
+        loopContext.clear();
+        fileDepth = 0;
+        callDepth = 0;
+        loading.clear();
+    }
+
     /** This session's definitions as script text that rebuilds them (for saving a REPL session). */
     public String definitionsAsScript() {
         return log.asScript();
@@ -192,22 +306,10 @@ public final class Interpreter {
             for (String name : v.names()) {
                 declareVariable(name, v.collected(), v.span());
             }
-            if (fileDepth == 0) {
-                log.add(SessionLog.Kind.VARS, null, "vars " + String.join(", ", v.names()) + (v.collected() ? " collected" : ""));
-            }
         } else if (s instanceof Stmt.Let l) {
             checkFreeName(l.name(), l.span(), true);
             Value value = eval(l.value());
             globals.put(l.name(), value);
-            if (fileDepth == 0) {
-                if (Display.hasScriptForm(value)) {
-                    log.addLazily(SessionLog.Kind.LET, l.name(), () -> "let " + l.name() + " = " + display.scriptText(value));
-                } else {
-                    // no script form (a solution, say): saved as the statement that computed it, which
-                    // refers to earlier names, so those are kept (an OTHER entry is never skipped over)
-                    log.add(SessionLog.Kind.OTHER, l.name(), l.source());
-                }
-            }
         } else if (s instanceof Stmt.Def d) {
             checkFreeName(d.name(), d.span(), true);
             java.util.Set<String> seenParameters = new java.util.HashSet<>();
@@ -219,14 +321,8 @@ public final class Interpreter {
             Map<String, Value> captured = new HashMap<>();
             frames.descendingIterator().forEachRemaining(captured::putAll); // inner frames win
             globals.put(d.name(), new FunctionValue(d.name(), d.parameters(), d.body(), d.source(), captured));
-            if (fileDepth == 0) {
-                log.add(SessionLog.Kind.OTHER, d.name(), d.source());
-            }
         } else if (s instanceof Stmt.Unknown u) {
             declareUnknowns(u);
-            if (fileDepth == 0) {
-                log.add(SessionLog.Kind.OTHER, u.name(), u.source());
-            }
         } else if (s instanceof Stmt.Use u) {
             use(u);
         } else if (s instanceof Stmt.Show sh) {
@@ -258,9 +354,15 @@ public final class Interpreter {
             Map<String, Value> frame = new HashMap<>();
             frames.push(frame);
             loopContext.add("");
+            // a loop over long work (solves, say) says where it is: in place on a terminal, as occasional lines in a log
+            ProgressLine progress = ProgressLine.standardError();
+            int done = 0;
             try {
                 for (Value m : members) {
-                    loopContext.set(loopContext.size() - 1, f.variable() + " = " + Display.plain(m, false));
+                    String current = f.variable() + " = " + Display.plain(m, false);
+                    String count = " (" + ++done + " of " + members.size() + ")";
+                    progress.update(() -> "for " + current + count);
+                    loopContext.set(loopContext.size() - 1, current);
                     if (++loopIterations > options.limits().maxLoopIterations()) {
                         throw new ContourException("more than " + options.limits().maxLoopIterations()
                                 + " loop iterations in one run", f.span());
@@ -271,6 +373,7 @@ public final class Interpreter {
                     }
                 }
             } finally {
+                progress.close();
                 frames.pop();
                 loopContext.remove(loopContext.size() - 1);
             }
@@ -368,7 +471,20 @@ public final class Interpreter {
 
     private void use(Stmt.Use u) {
         Path file = resolve(u.path(), u.span());
-        if (!used.add(file.toAbsolutePath().normalize())) {
+        Path key = file.toAbsolutePath().normalize();
+        int open = loading.indexOf(key);
+        if (open >= 0) {
+            List<String> chain = new ArrayList<>();
+            for (Path p : loading.subList(open, loading.size())) {
+                chain.add(String.valueOf(p.getFileName()));
+            }
+            chain.add(String.valueOf(key.getFileName()));
+            throw new ContourException("'use' cycle: " + (chain.size() == 2 ? chain.get(0) + " uses itself"
+                    : String.join(" uses ", chain.subList(0, 2)) + chain.subList(2, chain.size()).stream()
+                            .map(n -> ", which uses " + n).reduce("", String::concat))
+                    + " (a file cannot load a file that is still loading it; move what both need into a third file)", u.span());
+        }
+        if (!used.add(key)) {
             return; // each library loads once per session
         }
         String text;
@@ -380,6 +496,7 @@ public final class Interpreter {
         Path savedDirectory = directory;
         Deque<Map<String, Value>> savedFrames = frames;
         fileDepth++;
+        loading.add(key);
         try {
             directory = file.toAbsolutePath().getParent();
             frames = new ArrayDeque<>();
@@ -390,9 +507,7 @@ public final class Interpreter {
             fileDepth--;
             directory = savedDirectory;
             frames = savedFrames;
-        }
-        if (fileDepth == 0) {
-            log.add(SessionLog.Kind.OTHER, null, "use \"" + u.path().replace("\\", "\\\\").replace("\"", "\\\"") + "\"");
+            loading.remove(loading.size() - 1);
         }
     }
 
@@ -420,6 +535,19 @@ public final class Interpreter {
         }
         throw new ContourException("cannot find '" + name + "' (looked in " + String.join(", ",
                 tried.stream().map(p -> p.getParent() == null ? "." : p.getParent().toString()).distinct().toList()) + ")", span);
+    }
+
+    /** The script's own file, when the name is a file on disk (not {@code <repl>} or a test's label). */
+    private static Path fileOf(String fileName) {
+        if (fileName == null) {
+            return null;
+        }
+        try {
+            Path p = Path.of(fileName).toAbsolutePath().normalize();
+            return Files.isRegularFile(p) ? p : null;
+        } catch (RuntimeException e) {
+            return null;
+        }
     }
 
     private static Path directoryOf(String fileName) {
@@ -755,6 +883,9 @@ public final class Interpreter {
             }
             List<Value> out = new ArrayList<>();
             for (long m : r.members()) {
+                if ((out.size() & 1023) == 0) {
+                    tick(span);
+                }
                 out.add(Values.of(m));
             }
             return out;
@@ -925,12 +1056,11 @@ public final class Interpreter {
     }
 
     private void tick(Span span) {
-        // The REPL stops a running input by interrupting its thread; honour it at statement and loop boundaries.
-        if (Thread.interrupted()) {
-            throw new ContourException("interrupted", span);
-        }
-        if (deadline != Long.MAX_VALUE && System.nanoTime() > deadline) {
-            throw new ContourException("the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms", span);
+        // An interrupt (the REPL's Ctrl-C) or a passed time limit stops the run here and in every long loop below.
+        try {
+            Cancellation.check();
+        } catch (Cancellation.Stop stop) {
+            throw stop.at(span);
         }
     }
 

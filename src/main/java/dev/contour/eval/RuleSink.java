@@ -11,6 +11,16 @@ import dev.contour.lang.Stmt;
 public interface RuleSink {
     void accept(Stmt.Rule rule);
 
+    /** The rules stated so far, as an immutable value {@link #restore} takes back (a session snapshot). */
+    default Object state() {
+        return null;
+    }
+
+    /** Puts back what {@link #state} returned, forgetting the rules stated since. */
+    default void restore(Object state) {
+        // a sink without state has nothing to put back
+    }
+
     /** Runs {@code derive}: the text shows each step. */
     default RuleReport derive(Stmt.Derive statement, RuleContext context) {
         throw new ContourException("'derive' needs the rewriting engine, which is not in this build", statement.span());

@@ -1,5 +1,6 @@
 package dev.contour.mellin;
 
+import dev.contour.Cancellation;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.LinearFactors;
 import dev.contour.algebra.Monomial;
@@ -64,6 +65,7 @@ public final class PoleAnalysis {
         TreeMap<Monomial, List<Pole>> by = new TreeMap<>();
         Map<LinearFactors.Factor, Pole> memo = new java.util.HashMap<>();
         f.terms().forEach((m, c) -> {
+            Cancellation.check();
             List<Pole> poles = poles(c, forms, mellin, memo);
             if (!poles.isEmpty()) {
                 by.put(m, poles);

@@ -1,5 +1,6 @@
 package dev.contour.mellin;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.LinearFactors;
@@ -65,6 +66,7 @@ public final class ResiduePolynomiality {
         java.util.Set<List<Object>> seen = new java.util.HashSet<>();
         Map<LinearFactors.Factor, Pole> memo = new java.util.HashMap<>();
         f.terms().forEach((m, c) -> {
+            Cancellation.check();
             for (Pole pole : PoleAnalysis.poles(c, forms, mellin, memo)) {
                 String x = residueVariable(pole.factor(), mellin);
                 LinearFactors.Factor d = firstInnerPole(c, pole, x, mellin);
@@ -99,6 +101,7 @@ public final class ResiduePolynomiality {
                 Map<Polynomial, Integer> inner = new LinkedHashMap<>();
                 Map<Polynomial, Pole> named = new LinkedHashMap<>();
                 e.terms().forEach((mono, c) -> {
+                    Cancellation.check();
                     RationalFunction rc = r.coefficient(mono);
                     if (rc == null || rc.isZero()) {
                         return;

@@ -1,5 +1,6 @@
 package dev.contour.numeric;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
@@ -228,6 +229,9 @@ public final class ComplexFunctions {
         double zr = z.real().doubleValue();
         double zi = z.imag().doubleValue();
         for (long k = 0; k < s.count; k++) {
+            if ((k & 255) == 0) {
+                Cancellation.check();
+            }
             args += Math.atan2(zi, zr + k);
         }
         long turns = Math.round((args - logP.imag().doubleValue()) / (2 * Math.PI));
@@ -240,11 +244,17 @@ public final class ComplexFunctions {
         Apcomplex product = Apcomplex.ONE;
         if (n >= 0) {
             for (long k = 0; k < n; k++) {
+                if ((k & 255) == 0) {
+                    Cancellation.check();
+                }
                 product = product.multiply(x.add(new Apint(k)));
             }
             return product.precision(p);
         }
         for (long k = 1; k <= -n; k++) {
+            if ((k & 255) == 0) {
+                Cancellation.check();
+            }
             product = product.multiply(x.subtract(new Apint(k)));
         }
         if (product.isZero()) {
@@ -364,6 +374,9 @@ public final class ComplexFunctions {
         long m = re < c.radius ? (long) Math.ceil(c.radius - re) : 0;
         Apcomplex product = Apcomplex.ONE;
         for (long k = 0; k < m; k++) {
+            if ((k & 255) == 0) {
+                Cancellation.check();
+            }
             product = product.multiply(zz.add(new Apint(k)));
         }
         return new Shifted(zz.add(new Apint(m)), product, m, c);
@@ -411,6 +424,9 @@ public final class ComplexFunctions {
             int terms = stirlingTerms(g, radius);
             stirling = new Apfloat[terms];
             for (int k = 1; k <= terms; k++) {
+                if ((k & 255) == 0) {
+                    Cancellation.check();
+                }
                 BernoulliNumbers.Fraction b = BernoulliNumbers.get(2 * k);
                 Apfloat num = new Apfloat(b.numerator(), cp);
                 Apfloat den = new Apfloat(b.denominator().multiply(
@@ -435,6 +451,9 @@ public final class ComplexFunctions {
                 b = new Apfloat[terms + 1];
                 java.math.BigInteger factorial = java.math.BigInteger.ONE;
                 for (int k = 1; k <= terms; k++) {
+                    if ((k & 255) == 0) {
+                        Cancellation.check();
+                    }
                     factorial = factorial.multiply(java.math.BigInteger.valueOf((2L * k) * (2L * k + 1)));
                     BernoulliNumbers.Fraction bk = BernoulliNumbers.get(2 * k);
                     b[k] = new Apfloat(bk.numerator(), precision + 25)
@@ -455,6 +474,9 @@ public final class ComplexFunctions {
 
         private static int stirlingTerms(long g, double radius) {
             for (int k = 1; ; k++) {
+                if ((k & 255) == 0) {
+                    Cancellation.check();
+                }
                 int n = 2 * k + 2; // the first omitted term uses B_{2k+2}
                 double log10B = Math.log10(2 * 1.65) + log10Factorial(n) - n * Math.log10(2 * Math.PI);
                 double bound = log10B - Math.log10((double) n * (n - 1)) - (n - 1) * Math.log10(radius)

@@ -1,6 +1,8 @@
 package dev.contour.numeric;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
+import dev.contour.ProgressLine;
 import java.math.BigDecimal;
 import java.math.MathContext;
 import java.math.RoundingMode;
@@ -206,7 +208,7 @@ public final class MellinBarnes {
         final IntegrationLimits limits;
         final String contour;
         final Apfloat twoPi;
-        final Progress progress;
+        final ProgressLine progress;
         final GridMemo memo;
         final AtomicLong evaluations = new AtomicLong();
         double cutDigits;
@@ -218,6 +220,8 @@ public final class MellinBarnes {
         volatile Apcomplex best;
         private ExecutorService pool;
         private volatile boolean finished;
+        /** The caller's stop token, checked at every evaluation on either thread. */
+        private final Cancellation.Token stop = Cancellation.current();
 
         Run(int digits, IntegrationLimits limits, String contour) {
             if (digits < 1 || digits > 1000) {
@@ -229,7 +233,7 @@ public final class MellinBarnes {
             this.contour = contour;
             this.cutDigits = digits + CUT_EXTRA_DIGITS;
             this.twoPi = ApfloatMath.pi(wp).multiply(new Apint(2));
-            this.progress = new Progress(limits.progress());
+            this.progress = ProgressLine.on(limits.progress());
             this.memo = new GridMemo(wp);
         }
 
@@ -250,7 +254,7 @@ public final class MellinBarnes {
                 return memo.run(() -> refine(levelSum));
             } finally {
                 finished = true; // stops the other thread at its next evaluation if this one failed
-                progress.finish();
+                progress.close();
                 if (pool != null) {
                     pool.shutdownNow();
                 }
@@ -378,7 +382,7 @@ public final class MellinBarnes {
                 total.addAll(upper.get());
             } catch (InterruptedException e) {
                 Thread.currentThread().interrupt();
-                throw new ContourException("integration interrupted");
+                throw new Cancellation.Stop("interrupted", null);
             } catch (ExecutionException e) {
                 if (e.getCause() instanceof RuntimeException r) {
                     throw r;
@@ -441,6 +445,7 @@ public final class MellinBarnes {
             if (finished) {
                 throw new ContourException("integration abandoned");
             }
+            stop.check();
             long n = evaluations.incrementAndGet();
             if (n > limits.maxEvaluations()) {
                 throw notReached("within " + limits.maxEvaluations() + " integrand evaluations");

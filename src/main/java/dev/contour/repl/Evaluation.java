@@ -1,5 +1,6 @@
 package dev.contour.repl;
 
+import dev.contour.Cancellation;
 import java.util.concurrent.Semaphore;
 import java.util.concurrent.TimeUnit;
 
@@ -32,6 +33,8 @@ final class Evaluation {
     private final long graceMillis;
     private final Semaphore wake = new Semaphore(0);
     private volatile Thread worker;
+    /** The stop token of the running task: every long loop below it checks it (see {@link Cancellation}). */
+    private volatile Cancellation.Token token;
     private volatile boolean interruptRequested;
     private volatile boolean done;
     private volatile Throwable failure;
@@ -45,6 +48,10 @@ final class Evaluation {
         Thread w = worker;
         if (w != null && !done) {
             interruptRequested = true;
+            Cancellation.Token t = token;
+            if (t != null) {
+                t.cancel("interrupted");
+            }
             w.interrupt();
             wake.release();
         }
@@ -61,9 +68,11 @@ final class Evaluation {
         interruptRequested = false;
         done = false;
         failure = null;
+        Cancellation.Token stop = Cancellation.Token.manual();
+        token = stop;
         Thread t = new Thread(null, () -> {
             try {
-                task.run();
+                Cancellation.run(stop, task);
             } catch (Throwable x) {
                 failure = x;
             } finally {
@@ -88,6 +97,7 @@ final class Evaluation {
             return finishes(t, 2_000) ? Outcome.STOPPED : Outcome.ABANDONED;
         } finally {
             worker = null;
+            token = null;
         }
     }
 

@@ -30,7 +30,9 @@ public final class Repl {
      * Runs a session on a terminal until {@code :end} or Ctrl-D.
      *
      * @param prepare runs first (preloading scripts, say) with the new session
-     * @return the session's exit code
+     * @return 0: on a terminal every error was shown where it happened and the user went on, so
+     *         leaving is a normal end (piped sessions report errors and failed checks, see
+     *         {@link #onStreams})
      */
     public static int onTerminal(Terminal terminal, ReplSettings settings, Consumer<Session> prepare) {
         if (terminal.getWidth() <= 0) {
@@ -73,7 +75,7 @@ public final class Repl {
             terminal.handle(Terminal.Signal.INT, previous);
             out.flush();
         }
-        return session.exitCode();
+        return Main.OK;
     }
 
     /**

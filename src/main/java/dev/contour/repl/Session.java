@@ -7,8 +7,6 @@ import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.RunResult;
 import dev.contour.eval.Suggestions;
 import dev.contour.lang.Diagnostic;
-import dev.contour.lang.ScriptParser;
-import dev.contour.lang.Stmt;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.io.PrintStream;
@@ -58,8 +56,6 @@ public final class Session {
     private final Evaluation evaluation = new Evaluation(GRACE_MILLIS);
     /** Every line typed so far: the source the session's spans point into. */
     private final List<String> transcript = new ArrayList<>();
-    /** Inputs that ran to the end (with or without an error), to rebuild the session from. */
-    private final List<Past> past = new ArrayList<>();
     private Interpreter interpreter;
     private SwitchableOutput sink;
     private boolean anyError;
@@ -149,6 +145,8 @@ public final class Session {
         String text = input.script();
         String fileName = input.fileName();
         Interpreter target = interpreter;
+        // Values are immutable, so keeping the definitions as they are now costs a few map copies.
+        Interpreter.Snapshot before = target.snapshot();
         RunResult[] result = new RunResult[1];
         Evaluation.Outcome outcome = evaluation.run(() -> result[0] = target.run(text, fileName));
         out.flush();
@@ -157,27 +155,14 @@ public final class Session {
                 || outcome == Evaluation.Outcome.INTERRUPTED && failure != null;
         if (interrupted) {
             err.println("interrupted");
-            // The session goes on as it was before this input. Only statements that define
-            // something change it, so an input of nothing but shows and checks needs no repair
-            // (unless its worker still runs and may yet touch the interpreter).
-            if (outcome == Evaluation.Outcome.ABANDONED || definesSomething(text, fileName)) {
-                rebuild();
-            }
+            // The session goes on with the definitions it had before this input.
+            restore(before, outcome == Evaluation.Outcome.ABANDONED);
             return;
         }
-        past.add(input);
         if (failure == null) {
             anyCheckFailed |= !result[0].ok();
         } else {
             report(failure, text, fileName, input.bare() ? input.start() : 0);
-        }
-    }
-
-    private static boolean definesSomething(String text, String fileName) {
-        try {
-            return !ScriptParser.parseScript(text, fileName).stream().allMatch(s -> s instanceof Stmt.Show || s instanceof Stmt.Check);
-        } catch (ContourException e) {
-            return false; // it did not parse, so it never ran
         }
     }
 
@@ -225,27 +210,17 @@ public final class Session {
     }
 
     /**
-     * Replaces an interpreter whose worker had to be stopped mid-change: a fresh one replays the
-     * inputs that ran before, silently, so the session is as it was before the interrupted input.
+     * Puts the definitions back as they were before an interrupted input. A worker that could not
+     * be stopped may still touch its interpreter, so then a fresh interpreter takes the snapshot
+     * and the old one is muted and left to the worker.
      */
-    private void rebuild() {
-        sink.redirect(OutputStream.nullOutputStream());
-        SwitchableOutput quiet = new SwitchableOutput(OutputStream.nullOutputStream());
-        Interpreter fresh = newInterpreter(quiet);
-        if (!past.isEmpty()) {
-            err.println("(restoring the session from its " + past.size() + " earlier input" + (past.size() == 1 ? "" : "s") + ")");
+    private void restore(Interpreter.Snapshot before, boolean workerStillRuns) {
+        if (workerStillRuns) {
+            sink.redirect(OutputStream.nullOutputStream());
+            sink = new SwitchableOutput(out);
+            interpreter = newInterpreter(sink);
         }
-        for (int i = 0; i < past.size(); i++) {
-            Past p = past.get(i);
-            if (evaluation.run(() -> fresh.run(p.script(), p.fileName())) != Evaluation.Outcome.FINISHED) {
-                err.println("interrupted again: the session keeps the first " + i + " of its " + past.size() + " earlier inputs");
-                past.subList(i, past.size()).clear();
-                break;
-            }
-        }
-        quiet.redirect(out);
-        sink = quiet;
-        interpreter = fresh;
+        interpreter.restore(before);
     }
 
     private Interpreter newInterpreter(OutputStream to) {

@@ -1,5 +1,6 @@
 package dev.contour.rewrite;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.term.Term;
@@ -92,6 +93,7 @@ public final class Rewriter {
             return new Result(current, StopReason.SIZE_LIMIT, trace, limits);
         }
         while (true) {
+            Cancellation.check();
             if (System.nanoTime() > deadline) {
                 return new Result(current, StopReason.TIME_LIMIT, trace, limits);
             }
@@ -118,6 +120,7 @@ public final class Rewriter {
         List<Node> nodes = new ArrayList<>();
         outermostFirst(current, new ArrayList<>(), nodes);
         for (Node n : nodes) {
+            Cancellation.check();
             if (System.nanoTime() > deadline) {
                 return null;
             }

@@ -25,6 +25,16 @@ final class SessionRules implements RuleSink {
     }
 
     @Override
+    public Object state() {
+        return rules; // immutable: later rules build a new set
+    }
+
+    @Override
+    public void restore(Object state) {
+        rules = state instanceof RuleSet r ? r : RuleSet.EMPTY;
+    }
+
+    @Override
     public RuleReport derive(Stmt.Derive d, RuleContext context) {
         RuleSet use = rulesFor(d.ruleFiles(), d.span(), context);
         Rewriter.Result r = run(d.value(), use, Limits.of(d.limits()), context, d.span());

@@ -1,5 +1,6 @@
 package dev.contour.solve;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
@@ -148,6 +149,7 @@ public final class Constraint {
         }
         Map<Integer, Map<Monomial, RationalFunction>> parts = new TreeMap<>();
         target.terms().forEach((m, f) -> {
+            Cancellation.check();
             int col = -1;
             Map<String, Integer> rest = new TreeMap<>();
             for (var e : m.exponents().entrySet()) {

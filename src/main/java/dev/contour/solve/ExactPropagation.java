@@ -1,5 +1,6 @@
 package dev.contour.solve;
 
+import dev.contour.Cancellation;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -43,6 +44,9 @@ final class ExactPropagation {
         int known = 0;
         while (known < columns) {
             while (top > 0) {
+                if ((known & 1023) == 0) {
+                    Cancellation.check();
+                }
                 int r = stack[--top];
                 if (open[r] != 1) {
                     continue;
@@ -60,6 +64,7 @@ final class ExactPropagation {
             if (known == columns) {
                 break;
             }
+            Cancellation.check();
             int c = leastConstrained(rows, open, val, byCol);
             params.add(c);
             Rational[] v = zeros(params.size() + 1);
@@ -161,7 +166,9 @@ final class ExactPropagation {
                 x[j][c] = v.isZero() ? BigInteger.ZERO : v.numerator().multiply(lcm.divide(v.denominator()));
             }
         }
+        Cancellation.Token stop = Cancellation.current();
         return IntStream.range(0, rows.size()).parallel().filter(r -> !used[r]).mapToObj(r -> {
+            stop.check();
             IntegerRow row = rows.get(r);
             Rational[] res = null;
             for (int j = 0; j <= k; j++) {

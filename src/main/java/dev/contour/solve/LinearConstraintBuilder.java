@@ -1,5 +1,6 @@
 package dev.contour.solve;
 
+import dev.contour.Cancellation;
 import dev.contour.algebra.Monomial;
 import dev.contour.algebra.Rational;
 import java.util.ArrayList;
@@ -46,7 +47,11 @@ public final class LinearConstraintBuilder {
             progress.constraint(k + 1, constraints.size());
             Map<Object, Accumulator> rows = collect(c, progress);
             // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
-            system.addRows(new ArrayList<>(rows.values()).parallelStream().map(acc -> acc.toRow(tag)).toList());
+            Cancellation.Token stop = Cancellation.current();
+            system.addRows(new ArrayList<>(rows.values()).parallelStream().map(acc -> {
+                stop.check();
+                return acc.toRow(tag);
+            }).toList());
         }
         return system;
     }
@@ -62,8 +67,11 @@ public final class LinearConstraintBuilder {
         Applier apply = applier(c.condition, vars);
         int n = src.count();
         AtomicLong pieces = new AtomicLong();
+        // pool threads see neither the caller's interrupt nor its token: each piece checks the captured one
+        Cancellation.Token stop = Cancellation.current();
         // one map per fork-join leaf, merged pairwise (the smaller into the larger) as leaves finish
         return IntStream.range(0, n).parallel().collect(Holder::new, (holder, i) -> {
+            stop.check();
             Map<Object, Accumulator> local = holder.map;
             Piece piece = src.piece(i);
             int col = piece.column;

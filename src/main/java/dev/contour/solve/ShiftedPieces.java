@@ -1,5 +1,6 @@
 package dev.contour.solve;
 
+import dev.contour.Cancellation;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.LinearFactors;
 import dev.contour.algebra.Monomial;
@@ -62,6 +63,7 @@ final class ShiftedPieces implements Constraint.PieceSource {
             List<Monomial> ms = new ArrayList<>();
             List<FactoredTerm> ts = new ArrayList<>();
             b.coefficient().terms().forEach((m, f) -> {
+                Cancellation.check();
                 FactoredTerm t = Piece.factored(f, vars);
                 if (t != null) {
                     ms.add(m);
@@ -76,6 +78,7 @@ final class ShiftedPieces implements Constraint.PieceSource {
 
     private static boolean linearDenominators(Expression e) {
         for (RationalFunction f : e.terms().values()) {
+            Cancellation.check();
             for (LinearFactors.Factor d : f.denominatorFactors()) {
                 if (d.base().totalDegree() != 1) {
                     return false;

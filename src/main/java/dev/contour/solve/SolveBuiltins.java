@@ -87,14 +87,15 @@ public final class SolveBuiltins implements BuiltinProvider {
                 throw e.at(c.span());
             }
         }
-        SolveProgress progress = SolveProgress.to(System.err);
-        long t0 = System.nanoTime();
-        SparseSystem system = builder.build(progress);
-        long t1 = System.nanoTime();
-        Solution solution = system.solve(progress);
-        long t2 = System.nanoTime();
-        return new SolutionValue(solution, new SolutionValue.Figures(unknowns.size(), system.equations(),
-                (t1 - t0) / 1e9, (t2 - t1) / 1e9));
+        try (SolveProgress progress = SolveProgress.to(System.err)) {
+            long t0 = System.nanoTime();
+            SparseSystem system = builder.build(progress);
+            long t1 = System.nanoTime();
+            Solution solution = system.solve(progress);
+            long t2 = System.nanoTime();
+            return new SolutionValue(solution, new SolutionValue.Figures(unknowns.size(), system.equations(),
+                    (t1 - t0) / 1e9, (t2 - t1) / 1e9));
+        }
     }
 
     private static Value poleCondition(Arguments a, Span span, boolean residues) {

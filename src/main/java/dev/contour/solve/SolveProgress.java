@@ -1,36 +1,34 @@
 package dev.contour.solve;
 
+import dev.contour.ProgressLine;
 import java.io.PrintStream;
 
 /**
- * Throttled progress lines for long solves: nothing during the first second, then at most one
- * line per second (which condition is being turned into equations and how many of its pieces are
- * done; then the distinct equations and the unknowns determined exactly).
+ * Progress of a long solve (which condition is being turned into equations and how many of its
+ * pieces are done; then the distinct equations and the unknowns determined exactly), reported
+ * through a {@link ProgressLine}: in place on a terminal, as occasional plain lines elsewhere, and
+ * silent once the solve is asked to stop.
  */
-public final class SolveProgress {
-    private static final long SECOND = 1_000_000_000L;
-
-    private final PrintStream out;
-    private final long start = System.nanoTime();
-    private long lastReport = start;
+public final class SolveProgress implements AutoCloseable {
+    private final ProgressLine line;
+    private volatile String what = "starting";
     private volatile long generated;
+    private volatile int constraint = 1;
+    private volatile int constraints = 1;
 
-    private SolveProgress(PrintStream out) {
-        this.out = out;
+    private SolveProgress(ProgressLine line) {
+        this.line = line;
     }
 
     /** Progress reported on the given stream (the command line passes standard error). */
     public static SolveProgress to(PrintStream out) {
-        return new SolveProgress(out);
+        return new SolveProgress(ProgressLine.on(out));
     }
 
     /** No progress output at all. */
     public static SolveProgress silent() {
-        return new SolveProgress(null);
+        return new SolveProgress(ProgressLine.silent());
     }
-
-    private int constraint = 1;
-    private int constraints = 1;
 
     void constraint(int k, int of) {
         constraint = k;
@@ -51,20 +49,14 @@ public final class SolveProgress {
         tick(generated + " distinct equations, " + unknowns + " unknowns determined");
     }
 
-    private void tick(String what) {
-        if (out == null) {
-            return;
-        }
-        long now = System.nanoTime();
-        if (now - start < SECOND || now - lastReport < SECOND) {
-            return;
-        }
-        synchronized (this) {
-            if (now - lastReport < SECOND) {
-                return;
-            }
-            lastReport = now;
-            out.printf("solve: %.1f s, %s%n", (now - start) / 1e9, what);
-        }
+    private void tick(String now) {
+        what = now;
+        line.update(() -> String.format("solve: %.1f s, %s", line.elapsedNanos() / 1e9, what));
+    }
+
+    /** Ends the report (erasing the line on a terminal). */
+    @Override
+    public void close() {
+        line.close();
     }
 }

@@ -1,5 +1,6 @@
 package dev.contour.term;
 
+import dev.contour.Cancellation;
 import dev.contour.ContourException;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Rational;
@@ -93,11 +94,17 @@ public final class Terms {
         Expression result = Expression.ONE;
         if (n >= 0) {
             for (int k = 0; k < n; k++) {
+                if ((k & 255) == 0) {
+                    Cancellation.check();
+                }
                 result = result.multiply(x.add(Expression.constant(k)));
             }
             return result;
         }
         for (int k = 1; k <= -n; k++) {
+            if ((k & 255) == 0) {
+                Cancellation.check();
+            }
             result = result.multiply(x.subtract(Expression.constant(k)));
         }
         return Expression.ONE.divide(result);
@@ -111,6 +118,9 @@ public final class Terms {
         checkLength(n);
         BigInteger f = BigInteger.ONE;
         for (int k = 2; k <= n; k++) {
+            if ((k & 255) == 0) {
+                Cancellation.check();
+            }
             f = f.multiply(BigInteger.valueOf(k));
         }
         return f;

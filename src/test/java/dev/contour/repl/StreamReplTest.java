@@ -158,7 +158,7 @@ class StreamReplTest {
                 """ + shows + ":write " + saved + "\n");
         assertEquals(0, session.code(), session.err());
         String text = Files.readString(saved);
-        assertTrue(text.contains("let total = c[1] + c[0]\nlet sol = solve total == 2, c[1] - c[2] == 0 for c\n"), text);
+        assertTrue(text.contains("let total = c[0] + c[1]\nlet sol = solve total == 2, c[1] - c[2] == 0 for c\n"), text);
         assertTrue(text.contains("let alias = Gamma"), text);
         Path rerun = dir.resolve("rerun-solved.ctr");
         Files.writeString(rerun, text + shows);

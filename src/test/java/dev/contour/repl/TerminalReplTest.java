@@ -49,6 +49,20 @@ class TerminalReplTest {
     }
 
     @Test
+    void anInteractiveSessionWithErrorsAndFailedChecksEndsWithStatusZeroOnCtrlD() throws Exception {
+        try (TerminalHarness t = session(null)) {
+            t.type("show nope\n");
+            t.awaitText("unknown name 'nope'");
+            t.type("check 1 == 2\n");
+            t.awaitText("FAILED");
+            assertEquals(0, t.finish());
+        }
+        // the same inputs piped: the status reports them
+        assertEquals(2, StreamReplTest.repl("show nope\ncheck 1 == 2\n").code());
+        assertEquals(1, StreamReplTest.repl("check 1 == 2\n").code());
+    }
+
+    @Test
     void tabCompletesADefinedName() throws Exception {
         try (TerminalHarness t = session(null)) {
             t.type("let greeting_text = \"hello there\"\n");
@@ -80,7 +94,7 @@ class TerminalReplTest {
             t.awaitText("<repl>:2:5: expected a name, found '='\n    let = 3\n        ^\n");
             t.type("w\n");
             t.awaitText("still here\n");
-            assertEquals(2, t.finish());
+            assertEquals(0, t.finish(), "on a terminal the error was shown and the session went on");
         }
     }
 
@@ -111,14 +125,14 @@ class TerminalReplTest {
                 t.raise(Terminal.Signal.INT); // again, in case the first came before the work began
                 Thread.sleep(100);
             }
-            t.awaitText("(restoring the session from its 2 earlier inputs)\n");
+            t.awaitText("interrupted\n");
             t.awaitText("contour 4> ");
             t.type("show kept\n");
             t.awaitText("kept = s + t\n");
             t.type("z\n");
             t.awaitText("unknown name 'z'");
             t.type(":end\n");
-            assertEquals(2, t.finish());
+            assertEquals(0, t.finish(), "an interactive session ends normally whatever errors it showed");
         }
     }
 
