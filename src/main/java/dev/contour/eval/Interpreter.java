@@ -52,6 +52,8 @@ public final class Interpreter {
     private long loopIterations;
     private int passed;
     private int failed;
+    /** Receives every statement of the script when a whole-run printer (a report) listens; null otherwise. */
+    private java.util.function.Consumer<StatementEvent> listener;
 
     public Interpreter(InterpreterOptions options) {
         this(options, BuiltinRegistry.standard());
@@ -79,6 +81,14 @@ public final class Interpreter {
         this.options = options;
         this.registry = registry;
         this.display = new Display(options.format());
+    }
+
+    /**
+     * Reports every statement of the scripts this session runs to {@code l} (null stops it): what a
+     * derivation report is printed from. Libraries' own statements are not reported.
+     */
+    public void listen(java.util.function.Consumer<StatementEvent> l) {
+        this.listener = l;
     }
 
     /** The built-ins this session can call; register more at any time. */
@@ -163,6 +173,16 @@ public final class Interpreter {
     // ================================================================ statements
 
     private void execute(Stmt s) {
+        long started = System.nanoTime();
+        executeStatement(s);
+        if (listener != null && fileDepth == 0 && loopContext.isEmpty()
+                && !(s instanceof Stmt.Show) && !(s instanceof Stmt.Check)) {
+            listener.accept(new StatementEvent(s, "", null, "", "", null, System.nanoTime() - started));
+        }
+    }
+
+    private void executeStatement(Stmt s) {
+        long started = System.nanoTime();
         tick(s.span());
         if (s instanceof Stmt.Vars v) {
             for (String name : v.names()) {
@@ -215,6 +235,12 @@ public final class Interpreter {
             if (!options.checksOnly()) {
                 options.out().print(display.show(sh, v, context()));
             }
+            if (listener != null && fileDepth == 0) {
+                String latex = new Display(OutputFormat.LATEX).show(sh, v, context());
+                latex = latex.startsWith("% ") ? latex.substring(latex.indexOf('\n') + 1) : latex;
+                listener.accept(new StatementEvent(s, context(), v, new Display(OutputFormat.PLAIN).show(sh, v, context()),
+                        latex, null, System.nanoTime() - started));
+            }
         } else if (s instanceof Stmt.Check c) {
             Value left = eval(c.left());
             Value right = eval(c.right());
@@ -225,6 +251,10 @@ public final class Interpreter {
                 failed++;
             }
             options.out().print(display.check(c, outcome, options.checksOnly(), context()));
+            if (listener != null && fileDepth == 0) {
+                listener.accept(new StatementEvent(s, context(), null, new Display(OutputFormat.PLAIN).check(c, outcome, false, context()),
+                        "", outcome.holds(), System.nanoTime() - started));
+            }
         } else if (s instanceof Stmt.For f) {
             Value range = eval(f.range());
             List<Value> members = members(range, f.range().span(), "a 'for' loop");
