@@ -232,13 +232,19 @@ public final class Interpreter {
                     requireDeclared(c.variables(), v, sh.span());
                 }
             }
+            List<dev.contour.print.FormView.Form> forms = null;
+            for (Stmt.ShowOption o : sh.options()) {
+                if (o instanceof Stmt.InForms in) {
+                    forms = forms(eval(in.forms()), in.span());
+                }
+            }
             if (!options.checksOnly()) {
-                options.out().print(display.show(sh, v, context()));
+                options.out().print(display.show(sh, v, context(), forms));
             }
             if (listener != null && fileDepth == 0) {
-                String latex = new Display(OutputFormat.LATEX).show(sh, v, context());
+                String latex = new Display(OutputFormat.LATEX).show(sh, v, context(), forms);
                 latex = latex.startsWith("% ") ? latex.substring(latex.indexOf('\n') + 1) : latex;
-                listener.accept(new StatementEvent(s, context(), v, new Display(OutputFormat.PLAIN).show(sh, v, context()),
+                listener.accept(new StatementEvent(s, context(), v, new Display(OutputFormat.PLAIN).show(sh, v, context(), forms),
                         latex, null, System.nanoTime() - started));
             }
         } else if (s instanceof Stmt.Check c) {
@@ -295,6 +301,37 @@ public final class Interpreter {
         } else {
             throw new IllegalStateException("interpreter: unhandled statement " + s.getClass().getSimpleName());
         }
+    }
+
+    /** The named forms of {@code show ... in X}: a measure's, or pairs {name, linear form} such as {{u, -s - t}}. */
+    private List<dev.contour.print.FormView.Form> forms(Value v, Span span) {
+        if (v instanceof FormsValue f) {
+            return f.forms();
+        }
+        if (v instanceof ListValue l) {
+            List<Value> pairs = l.items().size() == 2 && !(l.items().get(0) instanceof ListValue) ? List.of(l) : l.items();
+            List<dev.contour.print.FormView.Form> out = new ArrayList<>();
+            java.util.Set<String> plainVariables = new java.util.TreeSet<>();
+            for (Value p : pairs) {
+                if (!(p instanceof ListValue pair) || pair.items().size() != 2 || !(pair.items().get(0) instanceof ExprValue name)
+                        || !(pair.items().get(1) instanceof ExprValue form) || !name.value().isRational()
+                        || name.value().innerVariables().size() != 1 || !form.value().isRational()
+                        || !form.value().asRationalFunction().isPolynomial()
+                        || form.value().asRationalFunction().numerator().totalDegree() != 1) {
+                    throw new ContourException("'in' takes a measure or pairs {name, linear form} such as {u, -s - t}", span);
+                }
+                String n = name.value().innerVariables().first();
+                dev.contour.algebra.Polynomial value = form.value().asRationalFunction().numerator();
+                plainVariables.addAll(value.variables());
+                out.add(new dev.contour.print.FormView.Form(n, value));
+            }
+            for (String x : plainVariables) {
+                out.add(0, new dev.contour.print.FormView.Form(x, dev.contour.algebra.Polynomial.variable(x)));
+            }
+            return out;
+        }
+        throw new ContourException("'in' takes a measure (its s, t and eliminated variable) or pairs {name, linear form}, not "
+                + Values.describe(v), span);
     }
 
     private String context() {
