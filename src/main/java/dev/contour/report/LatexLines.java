@@ -39,6 +39,9 @@ final class LatexLines {
             return out.append("\\end{align*}\n").toString();
         }
         List<String> rows = rows(body);
+        if (rows.size() == 1 && width(body) > ROW) {
+            rows = bracketRows(body);
+        }
         StringBuilder out = new StringBuilder();
         boolean open = false;
         for (int i = 0; i < rows.size(); i++) {
@@ -62,6 +65,40 @@ final class LatexLines {
             out.append("\\end{align*}\n");
         }
         return out.toString();
+    }
+
+    /**
+     * A product ending in a bracketed sum, {@code C\\,\\left(a + b + ...\\right)} (a common factor
+     * pulled out), cut inside the bracket: the rows open with {@code \\Bigl(} and close with
+     * {@code \\Bigr)}, which, unlike \\left and \\right, may stand on different rows.
+     */
+    static List<String> bracketRows(String text) {
+        if (!text.endsWith("\\right)")) {
+            return List.of(text);
+        }
+        int depth = 0;
+        int open = -1;
+        for (int i = text.length() - "\\right)".length() - 1; i >= 0; i--) {
+            if (text.startsWith("\\right", i) && !text.startsWith("\\rightarrow", i)) {
+                depth++;
+            } else if (text.startsWith("\\left", i) && !text.startsWith("\\leftarrow", i)) {
+                if (depth == 0) {
+                    open = i;
+                    break;
+                }
+                depth--;
+            }
+        }
+        if (open < 0 || !text.startsWith("\\left(", open)) {
+            return List.of(text);
+        }
+        String prefix = text.substring(0, open);
+        List<String> inner = rows(text.substring(open + "\\left(".length(), text.length() - "\\right)".length()));
+        List<String> out = new ArrayList<>();
+        for (int i = 0; i < inner.size(); i++) {
+            out.add((i == 0 ? prefix + "\\Bigl(" : "") + inner.get(i) + (i == inner.size() - 1 ? "\\Bigr)" : ""));
+        }
+        return out;
     }
 
     /** The text cut at top-level signs into rows of at most {@link #ROW} visible characters where possible. */

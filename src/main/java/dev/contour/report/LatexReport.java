@@ -74,7 +74,7 @@ public final class LatexReport {
             if (e.shown() instanceof PictureValue p) {
                 body.append(verbatim(e.plain()));
                 figure(p);
-            } else if (e.latex().isBlank() || e.latex().startsWith("\\text{")) {
+            } else if (e.latex().isBlank() || e.latex().startsWith("\\text{") || e.latex().startsWith("%")) {
                 body.append(verbatim(e.plain()));
             } else {
                 body.append(LatexLines.display(e.latex().strip()));
