@@ -14,7 +14,7 @@ import java.util.Map;
 import java.util.Set;
 
 /**
- * The AdS5 x S5 problem for equal weights p (physics-reference section 4): the two Mellin measures,
+ * The AdS5 x S5 problem for equal weights p (docs/conventions.md, "AdS5×S5" sections): the two Mellin measures,
  * the factor R of the superconformal Ward identity, the operator taking the reduced amplitude to the
  * full one, the crossing maps, the reduced ansatz and the allowed poles.
  *
