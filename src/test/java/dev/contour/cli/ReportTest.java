@@ -80,6 +80,23 @@ class ReportTest {
     }
 
     @Test
+    void theDrawCommandWritesAPoleMapOfTheScriptsSession() throws Exception {
+        Path svg = dir.resolve("map.svg");
+        CliRunner r = CliRunner.run("draw", script().toString(), "pole_map(A at (x = 0, y = 0), m, contour: {1, 1})", svg.toString());
+        // the script has a failing check: the picture is still drawn, and the status says so
+        assertEquals(Main.CHECK_FAILED, r.exitCode(), r.err());
+        assertTrue(r.out().startsWith("wrote " + svg), r.out());
+        assertTrue(Files.readString(svg).startsWith("<?xml"));
+        CliRunner wrong = CliRunner.run("draw", script().toString(), "A", dir.resolve("a.svg").toString());
+        assertEquals(Main.BAD_INPUT, wrong.exitCode());
+        assertTrue(wrong.err().contains("not a pole map"), wrong.err());
+        assertFalse(Files.exists(dir.resolve("a.svg")));
+        CliRunner usage = CliRunner.run("draw", script().toString());
+        assertEquals(Main.BAD_INPUT, usage.exitCode());
+        assertTrue(usage.err().contains("usage: contour draw"), usage.err());
+    }
+
+    @Test
     void aBadReportNameIsAUsageError() throws Exception {
         CliRunner r = CliRunner.run("run", "--report", dir.resolve("report.pdf").toString(), script().toString());
         assertEquals(Main.BAD_INPUT, r.exitCode());
