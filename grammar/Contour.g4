@@ -44,8 +44,10 @@ rewriteLimit : NUMBER IDENT ;
 
 showOption
     : COLLECTED IDENT (',' IDENT)*      # collectedOption
+    | 'factored' IDENT                  # factoredWholeOption
     | 'factored'                        # factoredOption
     | 'as' IDENT                        # formatOption
+    | 'in' arith                        # formsOption
     ;
 
 // Index sets: non-negative integers by default, narrowed by ranges and linear constraints.

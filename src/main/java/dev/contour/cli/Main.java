@@ -43,6 +43,8 @@ public final class Main {
               --json           print shown values and checks as JSON, one object per line
               --rules DIR      where 'use' looks for libraries (default: the project's rules/);
                                also --rules=DIR
+              --report FILE.tex  also write the run as a LaTeX derivation report (pole maps
+                               shown become figures beside it); also --report=FILE.tex
               --debug          show Java detail (stack traces) on errors
               -h, --help       this help
               -V, --version    the version
@@ -83,6 +85,13 @@ public final class Main {
                     }
                     options.rules = Path.of(rest.get(++index));
                 }
+                case "--report" -> {
+                    if (index + 1 >= rest.size()) {
+                        err.println("contour: --report needs a file (--report FILE.tex or --report=FILE.tex)");
+                        return BAD_INPUT;
+                    }
+                    options.report = Path.of(rest.get(++index));
+                }
                 case "-h", "--help" -> {
                     out.print(usage());
                     return OK;
@@ -94,6 +103,8 @@ public final class Main {
                 default -> {
                     if (a.startsWith("--rules=")) {
                         options.rules = Path.of(a.substring("--rules=".length()));
+                    } else if (a.startsWith("--report=")) {
+                        options.report = Path.of(a.substring("--report=".length()));
                     } else if (operands.isEmpty() || !isExternal(operands.get(0))) {
                         err.println("contour: unknown option '" + a + "' (see 'contour --help')");
                         return BAD_INPUT;
@@ -154,6 +165,7 @@ public final class Main {
         OutputFormat format = OutputFormat.PLAIN;
         boolean debug;
         Path rules;
+        Path report;
     }
 
     private static int runFiles(List<String> files, Options o, boolean checksOnly, PrintStream out, PrintStream err) {
@@ -161,6 +173,29 @@ public final class Main {
             err.println("contour: no script given (usage: contour " + (checksOnly ? "check" : "run") + " FILE...)");
             return BAD_INPUT;
         }
+        dev.contour.report.LatexReport report = null;
+        if (o.report != null) {
+            try {
+                report = new dev.contour.report.LatexReport(o.report, VERSION);
+            } catch (ContourException e) {
+                err.println("contour: " + e.getMessage());
+                return BAD_INPUT;
+            }
+        }
+        int code = runFiles(files, o, checksOnly, out, err, report);
+        if (report != null) {
+            try {
+                report.write();
+            } catch (ContourException e) {
+                err.println("contour: " + e.getMessage());
+                return BAD_INPUT;
+            }
+        }
+        return code;
+    }
+
+    private static int runFiles(List<String> files, Options o, boolean checksOnly, PrintStream out, PrintStream err,
+                                dev.contour.report.LatexReport report) {
         boolean failed = false;
         for (String file : files) {
             if (files.size() > 1 && !checksOnly && o.format == OutputFormat.PLAIN) {
@@ -178,11 +213,19 @@ public final class Main {
             }
             InterpreterOptions options = new InterpreterOptions(out, o.format, checksOnly, o.rules, o.debug);
             try {
-                RunResult result = new Interpreter(options).run(text, file);
+                Interpreter interpreter = new Interpreter(options);
+                if (report != null) {
+                    report.beginScript(file, text);
+                    interpreter.listen(report::accept);
+                }
+                RunResult result = interpreter.run(text, file);
                 failed |= !result.ok();
             } catch (ContourException e) {
                 out.flush();
                 err.print(Diagnostic.render(e, sourceOf(e, file, text)));
+                if (report != null) {
+                    report.stopped(Diagnostic.render(e, sourceOf(e, file, text)));
+                }
                 if (o.debug) {
                     e.printStackTrace(err);
                 }

@@ -6,6 +6,7 @@ import dev.contour.algebra.RationalFunction;
 import dev.contour.ContourException;
 import dev.contour.lang.Stmt;
 import dev.contour.print.CollectedView;
+import dev.contour.print.FormView;
 import dev.contour.print.JsonPrinter;
 import dev.contour.print.LatexPrinter;
 import dev.contour.print.PlainPrinter;
@@ -23,6 +24,23 @@ final class Display {
     }
 
     String show(Stmt.Show sh, Value v, String context) {
+        return show(sh, v, context, null);
+    }
+
+    /** As {@link #show(Stmt.Show, Value, String)}, with linear factors written through {@code forms} when not null. */
+    String show(Stmt.Show sh, Value v, String context, List<FormView.Form> forms) {
+        this.forms = forms;
+        try {
+            return showChecked(sh, v, context);
+        } finally {
+            this.forms = null;
+        }
+    }
+
+    /** The named forms of the statement being shown ({@code show ... in m}), or null. */
+    private List<FormView.Form> forms;
+
+    private String showChecked(Stmt.Show sh, Value v, String context) {
         OutputFormat f = format;
         for (Stmt.ShowOption o : sh.options()) {
             if (o instanceof Stmt.As as) {
@@ -70,6 +88,15 @@ final class Display {
             }
         }
         String label = sh.label();
+        boolean whole = sh.options().stream().anyMatch(o -> o instanceof Stmt.FactoredWhole);
+        if ((whole || forms != null) && f != OutputFormat.JSON) {
+            if (!(v instanceof ExprValue e)) {
+                throw new ContourException("'factored whole' and 'in' lay out rational expressions, not " + Values.describe(v), sh.span());
+            }
+            List<FormView.Form> in = forms == null ? List.of() : forms;
+            return f == OutputFormat.PLAIN ? context + label + " = " + FormView.plain(e.value(), in, whole) + "\n"
+                    : "% " + context + label + "\n" + FormView.latex(e.value(), in, whole) + "\n";
+        }
         return switch (f) {
             case PLAIN -> {
                 String text = plain(v, factored);

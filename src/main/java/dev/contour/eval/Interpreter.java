@@ -62,6 +62,9 @@ public final class Interpreter {
         void shown(String label, String plainValue, String latexValue);
     }
 
+    /** Receives every statement of the script when a whole-run printer (a report) listens; null otherwise. */
+    private java.util.function.Consumer<StatementEvent> listener;
+
     public Interpreter(InterpreterOptions options) {
         this(options, BuiltinRegistry.standard());
     }
@@ -88,6 +91,14 @@ public final class Interpreter {
         this.options = options;
         this.registry = registry;
         this.display = new Display(options.format());
+    }
+
+    /**
+     * Reports every statement of the scripts this session runs to {@code l} (null stops it): what a
+     * derivation report is printed from. Libraries' own statements are not reported.
+     */
+    public void listen(java.util.function.Consumer<StatementEvent> l) {
+        this.listener = l;
     }
 
     /** The built-ins this session can call; register more at any time. */
@@ -301,6 +312,16 @@ public final class Interpreter {
     // ================================================================ statements
 
     private void execute(Stmt s) {
+        long started = System.nanoTime();
+        executeStatement(s);
+        if (listener != null && fileDepth == 0 && loopContext.isEmpty()
+                && !(s instanceof Stmt.Show) && !(s instanceof Stmt.Check)) {
+            listener.accept(new StatementEvent(s, "", null, "", "", null, System.nanoTime() - started));
+        }
+    }
+
+    private void executeStatement(Stmt s) {
+        long started = System.nanoTime();
         tick(s.span());
         if (s instanceof Stmt.Vars v) {
             for (String name : v.names()) {
@@ -332,8 +353,20 @@ public final class Interpreter {
                     requireDeclared(c.variables(), v, sh.span());
                 }
             }
+            List<dev.contour.print.FormView.Form> forms = null;
+            for (Stmt.ShowOption o : sh.options()) {
+                if (o instanceof Stmt.InForms in) {
+                    forms = forms(eval(in.forms()), in.span());
+                }
+            }
             if (!options.checksOnly()) {
-                options.out().print(display.show(sh, v, context()));
+                options.out().print(display.show(sh, v, context(), forms));
+            }
+            if (listener != null && fileDepth == 0) {
+                String latex = new Display(OutputFormat.LATEX).show(sh, v, context(), forms);
+                latex = latex.startsWith("% ") ? latex.substring(latex.indexOf('\n') + 1) : latex;
+                listener.accept(new StatementEvent(s, context(), v, new Display(OutputFormat.PLAIN).show(sh, v, context(), forms),
+                        latex, null, System.nanoTime() - started));
             }
             if (showWatcher != null) {
                 showWatcher.shown(context() + sh.label(), Display.plain(v, false), Display.latex(v, false));
@@ -348,6 +381,10 @@ public final class Interpreter {
                 failed++;
             }
             options.out().print(display.check(c, outcome, options.checksOnly(), context()));
+            if (listener != null && fileDepth == 0) {
+                listener.accept(new StatementEvent(s, context(), null, new Display(OutputFormat.PLAIN).check(c, outcome, false, context()),
+                        "", outcome.holds(), System.nanoTime() - started));
+            }
         } else if (s instanceof Stmt.For f) {
             Value range = eval(f.range());
             List<Value> members = members(range, f.range().span(), "a 'for' loop");
@@ -395,6 +432,37 @@ public final class Interpreter {
         } else {
             throw new IllegalStateException("interpreter: unhandled statement " + s.getClass().getSimpleName());
         }
+    }
+
+    /** The named forms of {@code show ... in X}: a measure's, or pairs {name, linear form} such as {{u, -s - t}}. */
+    private List<dev.contour.print.FormView.Form> forms(Value v, Span span) {
+        if (v instanceof FormsValue f) {
+            return f.forms();
+        }
+        if (v instanceof ListValue l) {
+            List<Value> pairs = l.items().size() == 2 && !(l.items().get(0) instanceof ListValue) ? List.of(l) : l.items();
+            List<dev.contour.print.FormView.Form> out = new ArrayList<>();
+            java.util.Set<String> plainVariables = new java.util.TreeSet<>();
+            for (Value p : pairs) {
+                if (!(p instanceof ListValue pair) || pair.items().size() != 2 || !(pair.items().get(0) instanceof ExprValue name)
+                        || !(pair.items().get(1) instanceof ExprValue form) || !name.value().isRational()
+                        || name.value().innerVariables().size() != 1 || !form.value().isRational()
+                        || !form.value().asRationalFunction().isPolynomial()
+                        || form.value().asRationalFunction().numerator().totalDegree() != 1) {
+                    throw new ContourException("'in' takes a measure or pairs {name, linear form} such as {u, -s - t}", span);
+                }
+                String n = name.value().innerVariables().first();
+                dev.contour.algebra.Polynomial value = form.value().asRationalFunction().numerator();
+                plainVariables.addAll(value.variables());
+                out.add(new dev.contour.print.FormView.Form(n, value));
+            }
+            for (String x : plainVariables) {
+                out.add(0, new dev.contour.print.FormView.Form(x, dev.contour.algebra.Polynomial.variable(x)));
+            }
+            return out;
+        }
+        throw new ContourException("'in' takes a measure (its s, t and eliminated variable) or pairs {name, linear form}, not "
+                + Values.describe(v), span);
     }
 
     private String context() {

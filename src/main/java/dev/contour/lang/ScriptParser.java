@@ -152,6 +152,16 @@ public final class ScriptParser {
         if (o instanceof FactoredOptionContext) {
             return new Stmt.Factored();
         }
+        if (o instanceof FactoredWholeOptionContext w) {
+            if (!w.IDENT().getText().equals("whole")) {
+                throw new ContourException("after 'factored' only 'whole' may follow (the common factor pulled out), not '"
+                        + w.IDENT().getText() + "'", span(w.IDENT().getSymbol()));
+            }
+            return new Stmt.FactoredWhole();
+        }
+        if (o instanceof FormsOptionContext f) {
+            return new Stmt.InForms(arith(f.arith()), span(f));
+        }
         if (o instanceof FormatOptionContext f) {
             String format = f.IDENT().getText();
             if (!List.of("plain", "latex", "json").contains(format)) {

@@ -51,6 +51,18 @@ public sealed interface Stmt {
     /** {@code factored}: numerators split into factors too. */
     record Factored() implements ShowOption { }
 
+    /** {@code factored whole}: the factor common to all coefficients pulled out in front of a bracket. */
+    record FactoredWhole() implements ShowOption { }
+
+    /**
+     * {@code in m}: linear factors written through the named forms of a measure m (s, t and its
+     * eliminated variable), or of a list of pairs {@code {{u, -s - t}}}.
+     */
+    record InForms(Expr forms, Span span) implements ShowOption {
+        @Override public boolean equals(Object o) { return SpanlessEquality.equals(this, o); }
+        @Override public int hashCode() { return SpanlessEquality.hash(this); }
+    }
+
     /** {@code as latex} / {@code as json} / {@code as plain}. */
     record As(String format) implements ShowOption { }
 

@@ -11,7 +11,17 @@ import java.util.ArrayList;
 import java.util.List;
 
 /** A Mellin measure as a value of the language, made by {@code mellin_measure(...)}. */
-public record MeasureValue(MellinMeasure measure) implements Value {
+public record MeasureValue(MellinMeasure measure) implements dev.contour.eval.FormsValue {
+    /** s, t, and the eliminated variable as {@code total - s - t} (when the measure has one): for {@code show M in m}. */
+    @Override
+    public List<dev.contour.print.FormView.Form> forms() {
+        List<dev.contour.print.FormView.Form> out = new ArrayList<>();
+        for (NamedForm f : measure.poleForms()) {
+            out.add(new dev.contour.print.FormView.Form(f.name(), f.form()));
+        }
+        return out;
+    }
+
     @Override
     public String kind() {
         return "Mellin measure";

@@ -34,7 +34,7 @@ import org.apfloat.Apint;
  * to a number of digits, and {@code position_value}, the Mellin-Barnes integral of an amplitude
  * against a measure at a point (U, V). Found by the interpreter through {@link java.util.ServiceLoader}.
  *
- * <p>Normalisation of {@code position_value}, as in physics-reference section 2:
+ * <p>Normalisation of {@code position_value}, as in docs/conventions.md, "Mellin representation and normalisation":
  * {@code int ds/2 dt/2 / (2 pi i)^2 U^(a s + b) V^(c t + d) M(s, t) Gamma(s, t)}, i.e.
  * {@code ds dt / (4 pi i)^2}, on the straight contours Re s = cs, Re t = ct; the one-variable form
  * is {@code int ds/2 / (2 pi i) U^(a s + b) M(s) Gamma(s)}.

@@ -135,10 +135,20 @@ public record SolutionValue(Solution solution, Figures figures) implements Bindi
         }
         if (format == OutputFormat.LATEX) {
             // one aligned row per unknown, ready to paste
+            // a free unknown's own line (c = c) says nothing: the free ones are named once instead
             StringBuilder b = new StringBuilder("\\begin{aligned}\n");
+            List<String> free = solution instanceof Solution.Family f ? f.free() : List.of();
             for (Map.Entry<String, Expression> e : solution.assignments().entrySet()) {
+                if (free.contains(e.getKey()) && e.getValue().equals(Expression.collectedVariable(e.getKey()))) {
+                    continue;
+                }
                 b.append("  ").append(LatexPrinter.expression(Expression.collectedVariable(e.getKey()), false))
                         .append(" &= ").append(LatexPrinter.expression(e.getValue(), false)).append(" \\\\\n");
+            }
+            if (!free.isEmpty()) {
+                b.append("  ").append(LatexPrinter.text(free.size() == 1 ? "free:" : "free unknowns:")).append(" &\\quad ")
+                        .append(String.join(",\\ ", free.stream().map(x -> LatexPrinter.expression(Expression.collectedVariable(x), false)).toList()))
+                        .append(" \\\\\n");
             }
             return b.append("\\end{aligned}").toString();
         }

@@ -46,7 +46,7 @@ class AnyWeightsTest {
 
     @Test
     void checkValuesOf2233And2323() {
-        // arXiv:1710.05923 conventions; check values of physics-reference section 4b (a_000 = 1).
+        // arXiv:1710.05923 conventions; check values re-derived exactly for docs/backgrounds/ads5s5.md (a_000 = 1).
         passes("""
                 let w = {2, 2, 3, 3}
                 check degree(w) == 2
@@ -114,7 +114,7 @@ class AnyWeightsTest {
     @Test
     void equalWeightsAreTheSpecialCase() {
         // arXiv:1608.06624: for equal weights a_ijk is proportional to ((p-2)!/(i! j! k!))^2; the general
-        // definitions at {p, p, p, p} agree with the equal-weight ones of the same file (physics-reference section 4)
+        // definitions at {p, p, p, p} agree with the equal-weight ones of the same file
         passes("""
                 for p in 2..8 {
                     let w = {p, p, p, p}

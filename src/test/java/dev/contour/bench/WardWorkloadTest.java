@@ -28,7 +28,7 @@ class WardWorkloadTest {
             assertEquals(ResiduePolynomiality.check(direct, forms, AdS5S5.mellinVariables()).failures().size(),
                     row.nonPolynomial(), "p = " + p);
         }
-        // p = 3 with equal coefficients has polynomial residues (physics-reference section 4,
+        // p = 3 with equal coefficients has polynomial residues (docs/conventions.md, "AdS5×S5" sections,
         // arXiv:1608.06624). At p = 4 the solution's coefficients are not all equal (this project's
         // solver tests find them), so the all-ones ansatz must fail the check.
         assertEquals(0, WardBench.run(3).nonPolynomial());

@@ -16,7 +16,7 @@ import java.util.Set;
 /**
  * TEST SCOPE ONLY: an independent hand construction of the equal-weight AdS5 x S5 problem, kept to
  * cross-check the library file backgrounds/ads5s5.ctr (which is what users, benchmarks and the REPL
- * reach). The problem for equal weights p (arXiv:1608.06624): the two Mellin measures,
+ * reach). The problem for equal weights p (arXiv:1608.06624; docs/conventions.md, "AdS5×S5" sections): the two Mellin measures,
  * the factor R of the superconformal Ward identity, the operator taking the reduced amplitude to the
  * full one, the crossing maps, the reduced ansatz and the allowed poles.
  *

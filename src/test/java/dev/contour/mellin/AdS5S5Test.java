@@ -31,7 +31,7 @@ class AdS5S5Test {
     void p2CoefficientsMatchThePublishedAmplitude() {
         Expression m = fullP2();
         assertTrue(m.isCanonical());
-        // arXiv:1608.06624 (p = 2 amplitude), in the form of physics-reference section 4:
+        // arXiv:1608.06624 (p = 2 amplitude), in the form of docs/conventions.md, "AdS5×S5" sections:
         // sigma^2: -(s-4)(t-4) / (16 (s+t-6))
         assertEquals(s().subtract(c(4)).multiply(t().subtract(c(4))).negate()
                 .divide(c(16).multiply(s().add(t()).subtract(c(6)))), coefficient(m, 2, 0));
@@ -55,7 +55,7 @@ class AdS5S5Test {
         assertTrue(Growth.degree(fullP2(), AdS5S5.mellinVariables()).getAsInt() <= AdS5S5.GROWTH_BOUND);
     }
 
-    /** The explicit sum of physics-reference section 4, written out independently of the dictionary. */
+    /** The explicit sum of docs/conventions.md, "AdS5×S5" sections, written out independently of the dictionary. */
     private static ShiftOperator explicitWard(Expression p) {
         Expression u = c(4).multiply(p).subtract(s()).subtract(t());
         Expression a = c(2).multiply(p).subtract(s()).multiply(c(1, 2));
@@ -82,7 +82,7 @@ class AdS5S5Test {
 
     @Test
     void wardOperatorFromTheDictionaryEqualsTheExplicitFormula() {
-        // physics-reference section 4 (arXiv:1608.06624): symbolic p, then numeric weights.
+        // docs/conventions.md, "AdS5×S5" sections (arXiv:1608.06624): symbolic p, then numeric weights.
         ShiftOperator symbolic = AdS5S5.ward(symbolicP());
         assertEquals(explicitWard(p()), symbolic);
         assertEquals(6, symbolic.terms().size());
@@ -111,7 +111,7 @@ class AdS5S5Test {
     @Test
     void fullAmplitudeIsCrossingSymmetricForP2AndP3() {
         // Crossing M = tau^p M(t,s;sigma/tau,1/tau) and M = M(s,u;tau,sigma) (arXiv:1608.06624; checked for
-        // p = 2, 3 in physics-reference section 4); p = 3 with equal coefficients (arXiv:1710.05923).
+        // p = 2, 3 in docs/conventions.md, "AdS5×S5" sections); p = 3 with equal coefficients (arXiv:1710.05923).
         for (int p = 2; p <= 3; p++) {
             Expression m = AdS5S5.ward(p).apply(AdS5S5.reducedAnsatz(p, (i, j, k) -> Expression.ONE));
             Polynomial pp = pc(p);
@@ -127,7 +127,7 @@ class AdS5S5Test {
 
     @Test
     void reducedAmplitudeCrossingForP3AndP4() {
-        // M~ = tau^(p-2) M~(t,s;sigma/tau,1/tau) and M~ = M~(s,utilde;tau,sigma) (physics-reference section 4,
+        // M~ = tau^(p-2) M~(t,s;sigma/tau,1/tau) and M~ = M~(s,utilde;tau,sigma) (docs/conventions.md, "AdS5×S5" sections,
         // arXiv:1710.05923 section 3): they permute (i, j, k), so a_ijk symmetric under permutations is crossing symmetric.
         for (int p = 3; p <= 4; p++) {
             Expression symmetric = AdS5S5.reducedAnsatz(p, (i, j, k) -> c(1).divide(c(fact(i) * fact(j) * fact(k))));

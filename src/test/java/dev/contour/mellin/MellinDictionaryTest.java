@@ -33,7 +33,7 @@ class MellinDictionaryTest {
 
     @Test
     void eulerOperatorsBecomeMultiplications() {
-        // U d/dU acts as s/2 and V d/dV as t/2 - p on U^(s/2) V^(t/2-p) (physics-reference section 3, common practice).
+        // U d/dU acts as s/2 and V d/dV as t/2 - p on U^(s/2) V^(t/2-p) (docs/conventions.md, "The dictionary", common practice).
         MellinMeasure m = AdS5S5.fullMeasure(symbolicP());
         assertEquals(ShiftOperator.multiplication(s().multiply(c(1, 2))),
                 MellinDictionary.translate(PositionOperator.uDerivative(), m, m));
@@ -44,7 +44,7 @@ class MellinDictionaryTest {
     @Test
     void monomialBecomesShiftTimesPochhammers() {
         // U within one measure: f(s-2, t) Gamma(s-2,t)/Gamma(s,t) = ((2p-s)/2)_1^2 / ((2p-u)/2 - 1)^2 with u = 4p-s-t
-        // (physics-reference section 3; Gamma(x+1) = x Gamma(x), common practice).
+        // (docs/conventions.md, "The dictionary"; Gamma(x+1) = x Gamma(x), common practice).
         MellinMeasure m = full(3);
         Expression a = c(6).subtract(s()).multiply(c(1, 2));
         Expression b = s().add(t()).subtract(c(6)).multiply(c(1, 2)).subtract(c(1));
@@ -101,7 +101,7 @@ class MellinDictionaryTest {
     void dictionaryAgreesWithGammaFunctionsNumerically() {
         // Gamma1(s-2m, t-2n)/Gamma2(s, t) from apfloat's Gamma at random complex points against the rational
         // function the dictionary produced, to 30 digits (working precision 50). Gamma1: reduced measure,
-        // Gamma2: full measure (physics-reference sections 3 and 4).
+        // Gamma2: full measure (docs/conventions.md, "The dictionary" and "AdS5×S5: the Ward factor").
         Random random = new Random(20261201L);
         int checks = 0;
         for (int p = 2; p <= 5; p++) {

@@ -33,7 +33,7 @@ class MellinScriptTest {
         return new Interpreter(InterpreterOptions.to(out).withFormat(format)).run(script, "test.ctr");
     }
 
-    /** The equal-weight reduced ansatz Mred with unknowns a[i,j,k] at weight p (physics-reference section 4). */
+    /** The equal-weight reduced ansatz Mred with unknowns a[i,j,k] at weight p (docs/conventions.md, "AdS5×S5" sections). */
     private static String ansatz(int p) {
         return dev.contour.bench.AnsatzSumBench.script(p);
     }
@@ -45,7 +45,7 @@ class MellinScriptTest {
     @Test
     void theAdS5S5ProblemInADozenLines() {
         // arXiv:1608.06624 / arXiv:1710.05923: at p = 3 equal a_ijk give a crossing-symmetric amplitude with
-        // simple poles at s, t, u = 2, 4, polynomial residues and linear growth (physics-reference section 4).
+        // simple poles at s, t, u = 2, 4, polynomial residues and linear growth (docs/conventions.md, "AdS5×S5" sections).
         String script = """
                 use "ads5s5.ctr"
                 let p = 3
@@ -70,7 +70,7 @@ class MellinScriptTest {
     @Test
     void theP4AnsatzIsSolvedThroughTheLanguage() {
         // arXiv:1608.06624 and arXiv:1710.05923: polynomial residues fix the reduced ansatz up to one constant,
-        // and the solution is crossing symmetric with linear growth (physics-reference section 4).
+        // and the solution is crossing symmetric with linear growth (docs/conventions.md, "AdS5×S5" sections).
         String script = ansatz(4) + """
                 let sol = solve supergravity_poles(ward(p)(Mred), p) for a
                 let Mred1 = Mred with sol normalized a[0, 0, 2] = 1
@@ -174,7 +174,7 @@ class MellinScriptTest {
     @Test
     void wardOperatorPrintsAndReadsBack() {
         assertTrue(printsAndReadsBack("show ward(2)").contains("*shift(s: -4)"));
-        // physics-reference section 4: the coefficients of R-hat are products of squared Pochhammer
+        // docs/conventions.md, "AdS5×S5" sections: the coefficients of R-hat are products of squared Pochhammer
         // factors, which 'factored' shows as such
         String factored = printsAndReadsBack("show ward(2) factored");
         assertTrue(factored.contains("((s - 4)^2*(s - 6)^2*sigma*tau/16)*shift(s: -4)"), factored);
@@ -205,7 +205,7 @@ class MellinScriptTest {
 
     @Test
     void symbolicWeightThroughTheLanguage() {
-        // physics-reference section 4: the dictionary handles p as a variable; giving p a value afterwards agrees.
+        // docs/conventions.md, "AdS5×S5" sections: the dictionary handles p as a variable; giving p a value afterwards agrees.
         String script = """
                 use "ads5s5.ctr"
                 vars p
@@ -235,7 +235,7 @@ class MellinScriptTest {
     }
     @Test
     void eulerOperatorsAreWrittenInScriptsAndTranslatedByTheDictionary() {
-        // physics-reference section 3: on the kernel U^(s/2) V^(t/2-p), U d/dU acts as s/2 and V d/dV as t/2 - p;
+        // docs/conventions.md, "The dictionary": on the kernel U^(s/2) V^(t/2-p), U d/dU acts as s/2 and V d/dV as t/2 - p;
         // [U d/dU, U] = U (common practice), and the dictionary turns composition into composition.
         String script = """
                 use "ads5s5.ctr"
@@ -303,7 +303,7 @@ class MellinScriptTest {
 
     @Test
     void theCyclicCrossingComposesTheTwoSwapsInTheLanguage() {
-        // arXiv:1608.06624 (physics-reference section 4): the p = 2 and p = 3 amplitudes are crossing symmetric, so
+        // arXiv:1608.06624 (docs/conventions.md, "AdS5×S5" sections): the p = 2 and p = 3 amplitudes are crossing symmetric, so
         // the composite of 1<->2 and 1<->3 fixes them; the composite is a 3-cycle, so its cube is the identity.
         String script = P3_ALL_ONES + """
                 check cross_cyclic(p)(M) == M

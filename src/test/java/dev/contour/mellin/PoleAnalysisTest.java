@@ -46,7 +46,7 @@ class PoleAnalysisTest {
 
     @Test
     void fullAmplitudeHasOnlyAllowedPoles() {
-        // physics-reference section 4: only simple poles at s, t, u = 2, ..., 2p-2 (p = 3, equal coefficients,
+        // docs/conventions.md, "AdS5×S5" sections: only simple poles at s, t, u = 2, ..., 2p-2 (p = 3, equal coefficients,
         // arXiv:1608.06624).
         Expression m = AdS5S5.ward(3).apply(AdS5S5.reducedAnsatz(3, (i, j, k) -> Expression.ONE));
         PoleAnalysis.Result r = PoleAnalysis.of(m, AdS5S5.poleForms(pc(3)), MELLIN);

@@ -25,7 +25,7 @@ class ResiduePolynomialityTest {
 
     @Test
     void equalCoefficientsAtP3GivePolynomialResidues() {
-        // physics-reference section 4: for p = 3 the unique solution has a_001 = a_010 = a_100
+        // docs/conventions.md, "AdS5×S5" sections: for p = 3 the unique solution has a_001 = a_010 = a_100
         // (arXiv:1608.06624, arXiv:1710.05923); p = 2 is the normalised amplitude.
         for (int p = 2; p <= 3; p++) {
             ResiduePolynomiality.Result r = ResiduePolynomiality.check(full(p, (i, j, k) -> Expression.ONE),

@@ -104,7 +104,7 @@ class MellinBarnesTest {
     @Test
     void boxFunctionToSixDigitsBothWays() {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363; value at z = 0.3 + 0.2i
-        // from /work/shared/docs/physics-reference.md section 5 (correct there to 16 digits).
+        // from docs/conventions.md, "The box function" (correct there to 16 digits).
         Apcomplex z = c("0.3", "0.2", 30);
         NumericResult integral = BoxFunction.viaMellinBarnes(z, 6, QUIET);
         NumericResult closed = BoxFunction.closedForm(z, 20);
@@ -117,7 +117,7 @@ class MellinBarnesTest {
     @Test
     void boxFunctionToFifteenDigitsAtThreePoints() {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363. The reference value at
-        // z = 0.3 + 0.2i is from physics-reference.md section 5; both sides must match it to 15 digits.
+        // z = 0.3 + 0.2i is from docs/conventions.md, "The box function"; both sides must match it to 15 digits.
         // (Both of our routes agree to 19 digits on 5.1976430145400816027; the document's 20-digit value
         // differs from them in the 17th digit.)
         Apcomplex reference = new Apfloat("5.1976430145400815451");

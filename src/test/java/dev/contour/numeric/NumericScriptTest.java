@@ -80,7 +80,7 @@ class NumericScriptTest {
         assertTrue(out.contains("error <= "), out);
     }
 
-    /** The box function of physics-reference section 5 with the measure written in the language. */
+    /** The box function of docs/conventions.md, "The box function" with the measure written in the language. */
     @Test
     void checkComparesNumbersToTheirStatedPrecision() {
         // Li2(1) = pi^2/6 (DLMF section 25.12) and Gamma(1/2) = sqrt(pi) (DLMF section 5.4); from memory.
@@ -118,21 +118,21 @@ class NumericScriptTest {
                 show position_value(1, box, U: 0.13, V: 0.53, contour: {-1/3, -1/3}, digits: %d)
                 """.formatted(digits));
         // U = z zbar = 0.13 and V = (1 - z)(1 - zbar) = 0.53 at z = 0.3 + 0.2i. position_value integrates with
-        // ds/2 dt/2 (physics-reference section 2), the box function with ds dt (section 5): a factor 4.
+        // ds/2 dt/2 (docs/conventions.md, "Mellin representation and normalisation"), the box function with ds dt (section 5): a factor 4.
         return printed(out, digits).multiply(new Apfloat(4));
     }
 
     @Test
     void boxFunctionToSixDigits() {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363; value 5.1976430145400815451 at
-        // z = 0.3 + 0.2i from physics-reference.md section 5.
+        // z = 0.3 + 0.2i from docs/conventions.md, "The box function".
         assertDigits(new Apfloat("5.1976430145400815451", 30), box(6), 6);
     }
 
     @Test
     void boxFunctionToFifteenDigits() {
         // Closed form: Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363; value 5.1976430145400815451 at
-        // z = 0.3 + 0.2i from physics-reference.md section 5 (good to 16 digits, see MellinBarnesTest).
+        // z = 0.3 + 0.2i from docs/conventions.md, "The box function" (good to 16 digits, see MellinBarnesTest).
         assertDigits(new Apfloat("5.1976430145400815451", 30), box(15), 15);
     }
 
@@ -163,7 +163,7 @@ class NumericScriptTest {
     void theBoxScriptIsFastThroughTheGenericMeasureIntegrand() {
         // Before the measure integrand was compiled (Gamma factors remembered per grid line and diagonal) this took
         // well over a minute; the bound leaves a wide margin on a shared machine. Closed form: Usyukina and
-        // Davydychev, Phys. Lett. B 298 (1993) 363; value 5.1976430145400815451 from physics-reference.md section 5.
+        // Davydychev, Phys. Lett. B 298 (1993) 363; value 5.1976430145400815451 from docs/conventions.md, "The box function".
         String out = run("""
                 vars s, t
                 let box = mellin_measure(gamma: {{-s, 2}, {-t, 2}, {1 + s + t, 2}}, kernel: {s, t})
@@ -250,7 +250,7 @@ class NumericScriptTest {
                 show position_value(1, box, U: 0.13, V: 0.53, digits: 6)
                 """);
         assertTrue(box.contains("contour {-1/3, -1/3} chosen"), box);
-        // Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363; physics-reference.md section 5.
+        // Usyukina and Davydychev, Phys. Lett. B 298 (1993) 363; docs/conventions.md, "The box function".
         assertDigits(new Apfloat("5.1976430145400815451", 30), printed(box, 6).multiply(new Apfloat(4)), 6);
     }
 
@@ -272,7 +272,7 @@ class NumericScriptTest {
     @Test
     void theBoxAtZAndZbar() {
         // z = 0.3 + 0.2i: U = z zbar = 0.13, V = (1 - z)(1 - zbar) = 0.53; closed form Usyukina and Davydychev,
-        // Phys. Lett. B 298 (1993) 363 (physics-reference.md section 5).
+        // Phys. Lett. B 298 (1993) 363 (docs/conventions.md, "The box function").
         String out = run("""
                 vars s, t
                 let box = mellin_measure(gamma: {{-s, 2}, {-t, 2}, {1 + s + t, 2}}, kernel: {s, t})
