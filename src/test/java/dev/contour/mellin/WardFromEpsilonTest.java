@@ -160,6 +160,49 @@ class WardFromEpsilonTest {
     }
 
     @Test
+    void ads4TruncatedAmplitudeSatisfiesTheEquationsToItsOrder() {
+        // arXiv:1712.02800: with epsilon = 1/2 (AdS4xS7) the poles do not truncate; physics-reference section 6:
+        // keep the first N poles and impose the equations order by order. Here k = 2 (Delta = 1), poles at
+        // s, t, u = 1, 3, ..., 2N - 1 (twist 1). Crossing and the equations' residues at the first N poles fix
+        // the pole part up to one constant (contact terms are not seen by residues); it satisfies the equations
+        // to order N but not at the next pole, where the missing poles enter; and the residues at s = 1, 3
+        // agree between N = 2 and N = 3 (order by order, the truncation does not move the lower poles).
+        RunResult r = run("""
+                use "ads4s7.ctr"
+                let k = 2
+                for N in 2..3 {
+                    unknown x[a, b, c in 1..3, q in 0..N - 1, d in 0..2] with a + b <= k
+                    unknown y[a, b, i, j] with a + b <= k, i + j <= 1
+                    let M = ads4_ansatz(k, 1, N, 2, x, y)
+                    let sol = solve ads4_cross13(k)(M) == M, ads4_cross12(k)(M) == M,
+                                    vanishes(sum n in 0..N - 1 : ads4_ward_at_order(M, k, 1, n)) for x, y
+                    show free_unknowns(sol)
+                    let A = M with sol
+                    check ads4_stray_poles(A, k, 1, N) == 0
+                    check ads4_ward_at_order(A, k, 1, N - 1) == 0
+                    let r1 = residue(coefficient(A, 1, of: {sigma, tau}), s, 1)
+                    let r3 = residue(coefficient(A, 1, of: {sigma, tau}), s, 3)
+                    check r3/r1 == (t + 1)/(10*(t - 1))
+                    show ads4_ward_at_order(A, k, 1, N)
+                }
+                """);
+        assertEquals(6, r.checksPassed(), output());
+        assertTrue(r.ok(), output());
+        // one pole unknown and four contact unknowns stay free at each N
+        Matcher m = Pattern.compile("free_unknowns\\(sol\\) = \\{([^}]*)}").matcher(output());
+        int found = 0;
+        while (m.find()) {
+            String[] names = m.group(1).split(", ");
+            assertEquals(5, names.length, output());
+            assertEquals(1, java.util.Arrays.stream(names).filter(x -> x.startsWith("x[")).count(), output());
+            found++;
+        }
+        assertEquals(2, found, output());
+        assertTrue(output().contains("[N = 2] ads4_ward_at_order(A, k, 1, N) = ")
+                && !output().contains("ads4_ward_at_order(A, k, 1, N) = 0\n"), output());
+    }
+
+    @Test
     void epsilonThatIsNotANumberIsALocatedError() {
         ContourException e = assertThrows(ContourException.class, () -> run("""
                 use "ads5s5.ctr"
