@@ -22,5 +22,6 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
         r.register(BenchRegistry.Workload.report("box",
                 "the one-loop box function as a two-variable Mellin-Barnes integral to 15 digits",
                 NumericBench::runBench));
+        dev.contour.bench.Ads7Bench.register(r);
     }
 }
