@@ -35,6 +35,10 @@ public final class CalculusBuiltins implements BuiltinProvider {
         r.register(Builtin.of("degree", 2,
                 "degree(e, {x, y}): the highest total degree of e in the chosen collected variables (0 for an expression free of them)",
                 CalculusBuiltins::degree));
+        r.register(Builtin.of("require_polynomial_in", 3,
+                "require_polynomial_in(e, {x, y}, \"what\"): e when no power of the listed collected variables is negative, "
+                        + "else an error naming what and the term",
+                CalculusBuiltins::requirePolynomialIn));
         r.register(Builtin.of("require_number", 2,
                 "require_number(x, \"what\"): x when it is a rational number, else an error naming what",
                 CalculusBuiltins::requireNumber));
@@ -43,20 +47,44 @@ public final class CalculusBuiltins implements BuiltinProvider {
                 CalculusBuiltins::requireInteger));
     }
 
-    private static Value degree(Arguments a, Span span) {
-        Expression e = rational(a, 0);
-        if (!(a.get(1) instanceof ListValue names)) {
-            throw new ContourException("degree: the second argument lists collected variables, such as {sigma, tau}", a.spanOf(1));
+    private static java.util.List<String> collectedList(Arguments a, int i) {
+        if (!(a.get(i) instanceof ListValue names)) {
+            throw new ContourException(a.function() + ": argument " + (i + 1) + " lists collected variables, such as {sigma, tau}",
+                    a.spanOf(i));
         }
         java.util.List<String> chosen = new java.util.ArrayList<>();
         for (Value v : names.items()) {
             Expression x = v instanceof ExprValue ev ? ev.value() : null;
             if (x == null || x.collectedVariables().size() != 1 || !x.innerVariables().isEmpty()
                     || !x.equals(Expression.collectedVariable(x.collectedVariables().first()))) {
-                throw new ContourException("degree: the second argument lists collected variables, such as {sigma, tau}", a.spanOf(1));
+                throw new ContourException(a.function() + ": argument " + (i + 1) + " lists collected variables, such as {sigma, tau}",
+                        a.spanOf(i));
             }
             chosen.add(x.collectedVariables().first());
         }
+        return chosen;
+    }
+
+    private static Value requirePolynomialIn(Arguments a, Span span) {
+        Expression e = rational(a, 0);
+        java.util.List<String> chosen = collectedList(a, 1);
+        if (!(a.get(2) instanceof StringValue what)) {
+            throw new ContourException(a.function() + ": the third argument is a string naming the value", a.spanOf(2));
+        }
+        for (var m : e.terms().keySet()) {
+            for (String v : chosen) {
+                if (m.exponent(v) < 0) {
+                    throw new ContourException(what.value() + " must be a polynomial in " + String.join(", ", chosen)
+                            + ", but it has the power " + v + "^" + m.exponent(v), a.spanOf(0));
+                }
+            }
+        }
+        return a.get(0);
+    }
+
+    private static Value degree(Arguments a, Span span) {
+        Expression e = rational(a, 0);
+        java.util.List<String> chosen = collectedList(a, 1);
         if (e.isZero()) {
             throw new ContourException("degree: the expression is zero, which has no degree", a.spanOf(0));
         }

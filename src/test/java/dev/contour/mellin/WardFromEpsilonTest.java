@@ -227,6 +227,17 @@ class WardFromEpsilonTest {
     }
 
     @Test
+    void negativePowersOfTheRSymmetryVariablesAreALocatedError() {
+        ContourException e = assertThrows(ContourException.class, () -> run("""
+                use "ads7s4.ctr"
+                let W = ads7_ward(sigma + 1/tau, 2)
+                """));
+        assertTrue(e.getMessage().contains("the amplitude must be a polynomial in sigma, tau, but it has the power tau^-1"),
+                e.getMessage());
+        assertTrue(e.span().isKnown(), e.getMessage());
+    }
+
+    @Test
     void anIdentityThatIsNotPolynomialIsALocatedError() {
         // sigma^3 with Delta = 4, epsilon = 2 (degree 2): chi^L does not clear the denominator chi^3.
         ContourException e = assertThrows(ContourException.class, () -> run("""
