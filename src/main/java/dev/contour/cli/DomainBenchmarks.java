@@ -24,5 +24,6 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
                 NumericBench::runBench));
         dev.contour.bench.CftDataBench.register(r);
         dev.contour.bench.SweepBench.register(r);
+        dev.contour.bench.Ads7Bench.register(r);
     }
 }

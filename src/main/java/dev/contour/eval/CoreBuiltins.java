@@ -25,7 +25,9 @@ final class CoreBuiltins {
                 (a, span) -> symbolic(Terms.FACTORIAL, List.of(a.get(0)), span)));
         r.register(Builtin.of(Terms.BINOM, 2, "binom(n, k), the binomial coefficient; exact for integer k",
                 (a, span) -> symbolic(Terms.BINOM, List.of(a.get(0), a.get(1)), span)));
-        r.register(Builtin.of("coefficient", 2, "coefficient(e, m): the part of e multiplying exactly the power product m of its variables",
+        r.register(new Builtin("coefficient", 2, 2, java.util.Set.of("of"), false,
+                "coefficient(e, m): the part of e multiplying exactly the power product m of its variables; "
+                        + "coefficient(e, m, of: {x, y}): exactly m in x and y (absent ones to the power 0), the rest kept",
                 CoreBuiltins::coefficient));
     }
 
@@ -56,7 +58,30 @@ final class CoreBuiltins {
         Map<String, Integer> wanted = terms.keySet().iterator().next().exponents();
         List<String> vars = new ArrayList<>(wanted.keySet());
         List<Integer> exps = vars.stream().map(wanted::get).toList();
-        if (vars.isEmpty()) {
+        var of = a.named("of");
+        if (of.isPresent()) {
+            if (!(of.get().value() instanceof ListValue names)) {
+                throw new ContourException("coefficient: of: lists the variables, such as {sigma, tau}", of.get().span());
+            }
+            List<String> chosen = new ArrayList<>();
+            for (Value v : names.items()) {
+                Expression x = v instanceof ExprValue ev ? ev.value() : null;
+                if (x == null || x.collectedVariables().size() != 1 || !x.innerVariables().isEmpty()
+                        || !x.equals(Expression.collectedVariable(x.collectedVariables().first()))) {
+                    throw new ContourException("coefficient: of: lists collected variables, such as {sigma, tau}", of.get().span());
+                }
+                chosen.add(x.collectedVariables().first());
+            }
+            for (String v : vars) {
+                if (!chosen.contains(v)) {
+                    throw new ContourException("coefficient: the power product mentions '" + v + "', which is not in of:", a.spanOf(1));
+                }
+            }
+            final List<String> given = vars;
+            final List<Integer> givenExps = exps;
+            exps = chosen.stream().map(v -> given.contains(v) ? givenExps.get(given.indexOf(v)) : 0).toList();
+            vars = chosen;
+        } else if (vars.isEmpty()) {
             // coefficient(e, 1): the part of e free of every collected variable (the empty power product)
             vars = new ArrayList<>(e.collectedVariables());
             exps = vars.stream().map(v -> 0).toList();

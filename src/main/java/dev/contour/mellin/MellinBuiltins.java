@@ -44,6 +44,10 @@ public final class MellinBuiltins implements BuiltinProvider {
                 "euler(U): the position operator U d/dU (euler(V): V d/dV); compose with '*' in written order, "
                         + "so euler(U)*U == U*euler(U) + U",
                 MellinBuiltins::euler));
+        r.register(new Builtin("position_operator", 1, 1, Set.of("euler", "cross"), false,
+                "position_operator(P, euler: {DU, DV}): P, a polynomial in U, V and two stand-ins DU, DV, as the position "
+                        + "operator with U^m V^n DU^j DV^k read as U^m V^n euler(U)^j euler(V)^k (the Euler operators act first)",
+                MellinBuiltins::positionOperator));
         r.register(new Builtin("crossing", 2, 2, Set.of("factor"), false,
                 "crossing({s, t, sigma, tau}, {t, s, sigma/tau, 1/tau}, factor: tau^2): M -> factor * M(replaced)",
                 MellinBuiltins::crossing));
@@ -202,6 +206,48 @@ public final class MellinBuiltins implements BuiltinProvider {
         }
         throw new ContourException("euler: '" + x + "' is not a cross ratio; they are " + uv[0] + " and " + uv[1]
                 + " (name others with cross: {X, Y})", a.spanOf(0));
+    }
+
+    /** {@code position_operator(P, euler: {DU, DV})}: stand-ins DU, DV read as euler(U), euler(V), acting first. */
+    private static Value positionOperator(Arguments a, Span span) {
+        String[] uv = crossRatios(a).orElse(new String[] {"U", "V"});
+        Arguments.Argument stand = required(a, "euler", span);
+        List<Value> names = list(stand.value(), stand.span(), "position_operator: euler");
+        if (names.size() != 2) {
+            throw new ContourException("position_operator: euler names the two stand-ins for euler(" + uv[0] + ") and euler("
+                    + uv[1] + "), such as {DU, DV}", stand.span());
+        }
+        String du = collectedName(names.get(0), stand.span());
+        String dv = collectedName(names.get(1), stand.span());
+        if (du.equals(dv) || List.of(uv).contains(du) || List.of(uv).contains(dv)) {
+            throw new ContourException("position_operator: the two stand-ins must differ from each other and from "
+                    + uv[0] + ", " + uv[1], stand.span());
+        }
+        Expression p = a.expression(0);
+        for (String name : p.innerVariables()) {
+            if (name.equals(uv[0]) || name.equals(uv[1]) || name.equals(du) || name.equals(dv)) {
+                throw new ContourException("position_operator: '" + name + "' must be a collected variable", a.spanOf(0));
+            }
+        }
+        PositionOperator out = PositionOperator.constant(Expression.ZERO);
+        for (Map.Entry<dev.contour.algebra.Monomial, dev.contour.algebra.RationalFunction> t : p.terms().entrySet()) {
+            Map<String, Integer> rest = new HashMap<>(t.getKey().exponents());
+            int m = orZero(rest.remove(uv[0]));
+            int n = orZero(rest.remove(uv[1]));
+            int j = orZero(rest.remove(du));
+            int k = orZero(rest.remove(dv));
+            if (j < 0 || k < 0) {
+                throw new ContourException("position_operator: " + (j < 0 ? du : dv) + " has a negative power in the term "
+                        + Collect.describe(t.getKey()) + "; an Euler operator has no inverse here", a.spanOf(0));
+            }
+            Expression c = Expression.of(Map.of(Collect.monomial(rest), t.getValue()));
+            out = out.add(PositionOperator.of(new PositionOperator.Word(m, n, j, k), c));
+        }
+        return new PositionOperatorValue(out, uv[0], uv[1]);
+    }
+
+    private static int orZero(Integer x) {
+        return x == null ? 0 : x;
     }
 
     private static Value crossing(Arguments a, Span span) {
