@@ -57,7 +57,7 @@ class AnyWeightsProperties {
     @Property(tries = 4)
     void wideningThePoleWindowDoesNotMatter(@ForAll("weights") List<Integer> w) {
         passes(AnyWeightsTest.solved(text(w), 1) + """
-                unknown d[i, j, x in -2..2, y in -2..2, z in -2..2] with i + j <= degree(w) - 2
+                unknown d[i, j, x in -2..2, y in -2..2, z in -2..2] with i + j <= r_degree(w) - 2
                 let Mred2 = general_ansatz(w, d, 2)
                 let M2 = ward_of(w)(Mred2)
                 let sol2 = solve residues_allowed_of(M2, w), poles_allowed_of(M2, w) for d

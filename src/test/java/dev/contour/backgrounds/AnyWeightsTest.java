@@ -37,7 +37,7 @@ class AnyWeightsTest {
     static String solved(String w, int width) {
         return "let w = " + w + "\n"
                 + "unknown c[i, j, x in -" + width + ".." + width + ", y in -" + width + ".." + width
-                + ", z in -" + width + ".." + width + "] with i + j <= degree(w) - 2\n"
+                + ", z in -" + width + ".." + width + "] with i + j <= r_degree(w) - 2\n"
                 + "let Mred = general_ansatz(w, c, " + width + ")\n"
                 + "let M = ward_of(w)(Mred)\n"
                 + "let sol = solve residues_allowed_of(M, w), poles_allowed_of(M, w) for c\n"
@@ -49,7 +49,7 @@ class AnyWeightsTest {
         // arXiv:1710.05923 conventions; check values re-derived exactly for docs/backgrounds/ads5s5.md (a_000 = 1).
         passes("""
                 let w = {2, 2, 3, 3}
-                check degree(w) == 2
+                check r_degree(w) == 2
                 check closed_form(w) == 1/((s - 2)*(t - 3)*(10 - 4 - s - t - 3))
                 let M = ward_of(w)(closed_form(w))
                 check coefficient(M, 1) == -(t - 5)*(s + t - 5)/(16*(s - 2))
@@ -86,7 +86,7 @@ class AnyWeightsTest {
         // supergravity growth O(beta) (arXiv:1608.06624, arXiv:1710.05923): a contact term in the reduced
         // amplitude grows like beta^4 or faster in M, so the growth bound removes it and one function is left
         passes(solved("{4, 3, 3, 2}", 1).replace("let Mred = general_ansatz(w, c, 1)",
-                "unknown e[i, j, m, n] with i + j <= degree(w) - 2, m + n <= 1\n"
+                "unknown e[i, j, m, n] with i + j <= r_degree(w) - 2, m + n <= 1\n"
                 + "let Mred = general_ansatz(w, c, 1) + contact_terms(w, e, 1)")
                 .replace("poles_allowed_of(M, w) for c", "poles_allowed_of(M, w), growth_at_most(M, 1, s, t) for c, e") + """
                 check function_count(Mred, sol) == 1
@@ -100,7 +100,7 @@ class AnyWeightsTest {
         // docs/backgrounds/ads5s5.md: a made-up ordering, solved from the general ansatz
         String out = passes("""
                 let w = {5, 4, 4, 3}
-                unknown c[i, j, x in -1..1, y in -1..1, z in -1..1] with i + j <= degree(w) - 2
+                unknown c[i, j, x in -1..1, y in -1..1, z in -1..1] with i + j <= r_degree(w) - 2
                 let Mred = general_ansatz(w, c, 1)
                 let M = ward_of(w)(Mred)
                 let sol = solve residues_allowed_of(M, w), poles_allowed_of(M, w) for c
@@ -205,7 +205,7 @@ class AnyWeightsTest {
 
     @Test
     void badWeightsAreLocatedErrorsAtTheCallersCall() {
-        ContourException odd = fails("show 1\nshow degree({2, 2, 2, 3})\n");
+        ContourException odd = fails("show 1\nshow r_degree({2, 2, 2, 3})\n");
         assertEquals("test.ctr", odd.span().file());
         assertEquals(3, odd.span().line());
         assertTrue(odd.getMessage().contains("the weights {2, 2, 2, 3} have an odd sum 9"), odd.getMessage());
