@@ -237,10 +237,14 @@ public final class NumericBuiltins implements BuiltinProvider {
         return new ComplexValue(Rational.ONE.subtract(x.re()), x.im().negate());
     }
 
-    /** The result times an exact factor (1/2 or 1/4): the digits claim and the relative error are unchanged. */
+    /**
+     * The result times an exact factor (1/2 or 1/4): the product is taken with two more digits, so it is
+     * exact, and the error bound is scaled with it; the claim is recomputed at the new scale.
+     */
     private static NumericResult scaled(NumericResult r, Apcomplex factor) {
-        return new NumericResult(r.value().multiply(factor).precision(r.value().precision()), r.digits(),
-                r.errorEstimate().multiply(factor.real()).precision(3));
+        Apcomplex v = r.value().precision(r.value().precision() + 2).multiply(factor);
+        double error = Magnitudes.log10Abs(r.errorEstimate().multiply(factor.real()));
+        return NumericResult.of(v, error, r.digits() + 1);
     }
 
     // ---------------------------------------------------------------------------------- helpers
