@@ -202,23 +202,21 @@ public record NumberValue(NumericResult result, boolean showError, String note) 
 
     /**
      * log10 of the relative error of a product or quotient. With relative errors a, b of the operands
-     * a product is off by at most a + b + ab, a quotient by at most (a + b)/(1 - b) (common practice);
-     * both at most twice a + b while a, b <= 1/2. Positive infinity when a divisor's relative error
-     * reaches 1/2.
+     * a product is off by at most a + b + ab, a quotient by at most (a + b)/(1 - b) (common practice).
+     * Positive infinity when a divisor's relative error reaches 1/2.
      */
     private static double relative(Operand x, Operand y, boolean quotient) {
         double a = x.log10Error() - Magnitudes.log10Abs(x.value());
         double b = y.log10Error() - Magnitudes.log10Abs(y.value());
-        double half = Math.log10(0.5);
-        if (quotient && b > half) {
-            return Double.POSITIVE_INFINITY;
-        }
         double sum = Magnitudes.log10Sum(a, b);
-        if (a > half || b > half) {
-            // Large relative errors: the exact bound a + b + ab.
-            return Magnitudes.log10Sum(sum, a + b);
+        if (quotient) {
+            if (b > Math.log10(0.5)) {
+                return Double.POSITIVE_INFINITY;
+            }
+            double oneMinusB = b == Double.NEGATIVE_INFINITY ? 0 : Math.log10(1 - Math.pow(10, b));
+            return sum - oneMinusB;
         }
-        return sum + Math.log10(2);
+        return a == Double.NEGATIVE_INFINITY || b == Double.NEGATIVE_INFINITY ? sum : Magnitudes.log10Sum(sum, a + b);
     }
 
     /**
