@@ -1,5 +1,6 @@
 package dev.contour.mellin;
 
+import dev.contour.ContourException;
 import dev.contour.eval.Interpreter;
 import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.RunResult;
@@ -73,5 +74,19 @@ class MeasureEliminationTest {
                 check (ward(2) + 0)(Mred) == B
                 """);
         assertTrue(r.ok() && r.checksPassed() > 0, output());
+    }
+
+    @Test
+    void aConditionWithTotalRefusesAnExpressionInAllThreeVariables() {
+        // residues_polynomial with total: reads u as total - s - t; an expression that still has u would
+        // have its residues taken with u held fixed.
+        ContourException e = assertThrows(ContourException.class, () -> run("""
+                vars s, t, u
+                unknown c[i] with i <= 0
+                let M = c[0]/((s - 2)*(t - 2)*(u - 2))
+                let sol = solve residues_polynomial(M, s in {2}, t in {2}, u in {2}, total: 8) for c
+                """));
+        assertEquals(4, e.span().line(), e.getMessage());
+        assertTrue(e.getMessage().contains("residues_polynomial: the expression mentions s, t, u although total:"), e.getMessage());
     }
 }
