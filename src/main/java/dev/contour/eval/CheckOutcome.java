@@ -39,6 +39,14 @@ public record CheckOutcome(boolean holds, Value left, Value right, Monomial firs
             }
             return new CheckOutcome(true, left, right, null, null, null, null, null, null);
         }
+        // A number against a number or an exact value: equal within their combined stated errors.
+        Boolean agree = left instanceof OperandValue l ? l.agreesWith(right) : null;
+        if (agree == null && right instanceof OperandValue r) {
+            agree = r.agreesWith(left);
+        }
+        if (agree != null) {
+            return new CheckOutcome(agree, left, right, null, null, null, null, null, null);
+        }
         Value difference = Arithmetic.binary(Expr.Operator.SUBTRACT, left, right, span, limits);
         Boolean zero = Arithmetic.isZero(difference);
         if (Boolean.FALSE.equals(zero) && difference instanceof OperandValue o) {

@@ -25,4 +25,13 @@ public interface OperandValue extends Value {
     default boolean isZeroToItsPrecision() {
         return isZero();
     }
+
+    /**
+     * For a value known to some precision: whether it and {@code other} agree within their combined
+     * stated errors ({@code check} between numbers, or a number and an exact value, decides with
+     * this). Null when this kind has no such notion or does not compare with other.
+     */
+    default Boolean agreesWith(Value other) {
+        return null;
+    }
 }

@@ -161,13 +161,13 @@ public final class MellinBuiltins implements BuiltinProvider {
                         + "}, not {" + cross.get()[0] + ", " + cross.get()[1] + "}", a.spanOf(0));
             }
             try {
-                return new OperatorValue(MellinDictionary.translate(x.operator(), from, to));
+                return new OperatorValue(MellinDictionary.translate(x.operator(), from, to), from.elimination());
             } catch (ContourException e) {
                 throw e.at(a.spanOf(0));
             }
         }
         String[] uv = cross.orElse(new String[] {"U", "V"});
-        return new OperatorValue(MellinDictionary.translate(a.expression(0), uv[0], uv[1], from, to));
+        return new OperatorValue(MellinDictionary.translate(a.expression(0), uv[0], uv[1], from, to), from.elimination());
     }
 
     /** The names given by {@code cross: {U, V}}, if any. */
@@ -273,7 +273,7 @@ public final class MellinBuiltins implements BuiltinProvider {
 
     private static Value poles(Arguments a, Span span) {
         MellinMeasure m = measureArg(a, 1);
-        PoleAnalysis.Result r = PoleAnalysis.of(a.expression(0), m.poleForms(), m.variables());
+        PoleAnalysis.Result r = PoleAnalysis.of(amplitude(a, m), m.poleForms(), m.variables());
         List<String> lines = new ArrayList<>();
         for (Pole p : r.all()) {
             lines.add(p.describe() + (p.order() == 1 ? "" : " (order " + p.order() + ")"));
@@ -293,7 +293,7 @@ public final class MellinBuiltins implements BuiltinProvider {
         }
         int order = a.named("order").map(o -> Values.integer(o.value(), o.span(), "order")).orElse(1);
         List<String> lines = new ArrayList<>();
-        PoleAnalysis.of(a.expression(0), m.poleForms(), m.variables()).outside(new AllowedPoles(allowed, order))
+        PoleAnalysis.of(amplitude(a, m), m.poleForms(), m.variables()).outside(new AllowedPoles(allowed, order))
                 .forEach(v -> lines.add(v.describe()));
         return new ReportValue("poles outside the allowed set", lines, "none");
     }
@@ -307,14 +307,14 @@ public final class MellinBuiltins implements BuiltinProvider {
     private static Value residueCheck(Arguments a, Span span) {
         MellinMeasure m = measureArg(a, 1);
         List<String> lines = new ArrayList<>();
-        ResiduePolynomiality.check(a.expression(0), m.poleForms(), m.variables()).failures()
+        ResiduePolynomiality.check(amplitude(a, m), m.poleForms(), m.variables()).failures()
                 .forEach(f -> lines.add(f.describe()));
         return new ReportValue("non-polynomial residues", lines, "none (every residue is polynomial)");
     }
 
     private static Value growth(Arguments a, Span span) {
         MellinMeasure m = measureArg(a, 1);
-        Growth.Result g = Growth.of(a.expression(0), m.variables());
+        Growth.Result g = Growth.of(amplitude(a, m), m.variables());
         if (g.degree().isEmpty()) {
             throw new ContourException("growth: the amplitude is zero", a.spanOf(0));
         }
@@ -323,7 +323,7 @@ public final class MellinBuiltins implements BuiltinProvider {
 
     private static Value leading(Arguments a, Span span) {
         MellinMeasure m = measureArg(a, 1);
-        return new ExprValue(Growth.of(a.expression(0), m.variables()).leading());
+        return new ExprValue(Growth.of(amplitude(a, m), m.variables()).leading());
     }
 
     private static Value partialFractions(Arguments a, Span span) {
@@ -355,6 +355,18 @@ public final class MellinBuiltins implements BuiltinProvider {
 
     private static Arguments.Argument required(Arguments a, String name, Span span) {
         return a.named(name).orElseThrow(() -> new ContourException(a.function() + " needs '" + name + ": ...'", span));
+    }
+
+    /**
+     * The first argument as a function of the measure's s and t: its eliminated variable replaced
+     * (see {@link MellinMeasure#resolve}); an error placed at the amplitude when that is impossible.
+     */
+    private static Expression amplitude(Arguments a, MellinMeasure m) {
+        try {
+            return m.resolve(a.expression(0));
+        } catch (ContourException e) {
+            throw new ContourException(a.function() + ": " + e.getMessage(), a.spanOf(0));
+        }
     }
 
     private static MellinMeasure measureArg(Arguments a, int i) {

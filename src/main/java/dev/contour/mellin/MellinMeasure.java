@@ -1,6 +1,7 @@
 package dev.contour.mellin;
 
 import dev.contour.ContourException;
+import dev.contour.algebra.Expression;
 import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
@@ -56,6 +57,19 @@ public record MellinMeasure(String s, String t, String u, Polynomial sum, List<G
             throw new ContourException("this measure declares no constraint s + t + u = sum");
         }
         return sum.subtract(Polynomial.variable(s)).subtract(Polynomial.variable(t));
+    }
+
+    /**
+     * {@code f} as a function of s and t alone: the eliminated variable, where f mentions it, replaced
+     * by {@code sum - s - t} (see {@link Elimination}); f itself without a constraint.
+     */
+    public Expression resolve(Expression f) {
+        return u == null ? f : elimination().resolve(f);
+    }
+
+    /** The eliminated variable and its value; null without a constraint. */
+    public Elimination elimination() {
+        return u == null ? null : new Elimination(u, eliminated());
     }
 
     /** The forms s, t, u along which this measure's amplitudes have their poles. */

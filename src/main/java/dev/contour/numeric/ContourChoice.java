@@ -17,6 +17,14 @@ import java.util.List;
  * visiting the vertices of {m <= l_i(x, y)} (with |x|, |y| <= 1000 and, when the maximum is
  * unbounded, m <= 1/2, so a half-unbounded gap gets a contour half a unit from its edge, as
  * {@link MellinBarnes#separatingContour} does in one variable).
+ *
+ * <p>The amplitude's own poles take part (the prescription of measure and amplitude together): a
+ * pole of the amplitude along a form on which the measure has Gamma poles lies on the same side as
+ * those, as exchange poles and double-trace poles of one channel are both picked up when the
+ * s-contour is closed for that channel's OPE (common practice for Mellin amplitudes). A pole {@code f = 0} along
+ * Gamma(g) with g = lambda f + const therefore enters as one more form lambda f that must keep a
+ * positive real part. A pole along no Gamma factor, or along Gamma factors with poles on both
+ * sides, has no such rule and is refused by name.
  */
 final class ContourChoice {
     private ContourChoice() { }
@@ -31,10 +39,61 @@ final class ContourChoice {
         }
     }
 
+    /** A pole of the amplitude: {@code factor = 0} (linear in the Mellin variables), and how to name it. */
+    record AmplitudePole(Polynomial factor, String name) { }
+
     /** The contour {Re s} or {Re s, Re t} (t null for one variable); ContourException when none separates the poles. */
     static Rational[] choose(List<GammaPower> factors, String s, String t) {
+        return choose(factors, List.of(), s, t);
+    }
+
+    /**
+     * The contour for the measure's Gamma factors and the amplitude's poles together; a
+     * ContourException naming the pole when an amplitude pole has no side by the rule above.
+     */
+    static Rational[] choose(List<GammaPower> factors, List<AmplitudePole> poles, String s, String t) {
         List<Row> forms = new ArrayList<>();
         List<String> described = new ArrayList<>();
+        for (AmplitudePole pole : poles) {
+            Polynomial f = pole.factor();
+            Rational p = coefficient(f, s);
+            Rational q = t == null ? Rational.ZERO : coefficient(f, t);
+            if (p.signum() == 0 && q.signum() == 0) {
+                continue;
+            }
+            Rational lambda = null;
+            List<String> along = new ArrayList<>();
+            boolean bothSides = false;
+            for (GammaPower g : factors) {
+                if (g.exponent() <= 0) {
+                    continue;
+                }
+                Rational a = coefficient(g.argument(), s);
+                Rational b = t == null ? Rational.ZERO : coefficient(g.argument(), t);
+                // (a, b) = l (p, q)?
+                if (a.multiply(q).compareTo(b.multiply(p)) != 0 || a.signum() == 0 && b.signum() == 0) {
+                    continue;
+                }
+                Rational l = p.signum() != 0 ? a.divide(p) : b.divide(q);
+                along.add("Gamma(" + g.argument() + ")");
+                if (lambda == null) {
+                    lambda = l;
+                } else if (lambda.signum() != l.signum()) {
+                    bothSides = true;
+                }
+            }
+            if (lambda == null) {
+                throw new ContourException("the amplitude's pole at " + pole.name() + " lies along no Gamma factor of the measure,"
+                        + " so no rule says on which side of the contour it belongs; give contour: explicitly");
+            }
+            if (bothSides) {
+                throw new ContourException("the amplitude's pole at " + pole.name() + " lies along " + String.join(" and ", along)
+                        + ", whose poles lie on both sides, so no rule says on which side of the contour it belongs; give contour: explicitly");
+            }
+            Rational c = f.evaluate(zeros(f));
+            forms.add(new Row(lambda.multiply(p), lambda.multiply(q), Rational.of(-1), lambda.multiply(c)));
+            described.add("the pole at " + pole.name());
+        }
         for (GammaPower g : factors) {
             if (g.exponent() <= 0) {
                 continue; // a Gamma in the denominator has no poles
@@ -53,12 +112,13 @@ final class ContourChoice {
             return t == null ? new Rational[] {Rational.ZERO} : new Rational[] {Rational.ZERO, Rational.ZERO};
         }
         Rational[] best = solve(forms, t != null, UNBOUNDED);
-        if (best[2].compareTo(UNBOUNDED) >= 0) {
+        // Unbounded: the best point sits on the cap of m or on the box |x|, |y| <= 1000 (where m could grow further).
+        if (best[2].compareTo(UNBOUNDED) >= 0 || best[0].abs().compareTo(BOUND) == 0 || best[1].abs().compareTo(BOUND) == 0) {
             best = solve(forms, t != null, Rational.of(1, 2));
         }
         if (best[2].signum() <= 0) {
-            throw new ContourException("no straight contour separates the poles of " + String.join(" ", described)
-                    + ": the Gamma arguments cannot all have positive real part at once"
+            throw new ContourException("no straight contour separates the poles of " + String.join(", ", described)
+                    + ": the Gamma arguments (and the amplitude's poles, each on the side of the measure's along it) cannot all be placed at once"
                     + " (the best gives min Re = " + best[2] + "); give contour: explicitly or deform the integral");
         }
         return t == null ? new Rational[] {best[0]} : new Rational[] {best[0], best[1]};

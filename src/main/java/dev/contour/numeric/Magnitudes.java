@@ -28,6 +28,47 @@ final class Magnitudes {
         return ApfloatMath.scale(new Apfloat(Math.pow(10, e - floor), 3), (long) floor);
     }
 
+    /**
+     * 10^e rounded up to three digits (zero for negative infinity): an error bound written down must
+     * not come out smaller than the one computed.
+     */
+    static Apfloat pow10Up(double e) {
+        if (e == Double.NEGATIVE_INFINITY) {
+            return Apfloat.ZERO;
+        }
+        double floor = Math.floor(e);
+        double mantissa = Math.pow(10, e - floor) * (1 + 1e-9);
+        java.math.BigDecimal m = new java.math.BigDecimal(mantissa).round(new java.math.MathContext(3, java.math.RoundingMode.CEILING));
+        return ApfloatMath.scale(new Apfloat(m, 3), (long) floor);
+    }
+
+    /** log10(10^x + 10^y), either of them possibly negative infinity. */
+    static double log10Sum(double x, double y) {
+        if (x == Double.NEGATIVE_INFINITY) {
+            return y;
+        }
+        if (y == Double.NEGATIVE_INFINITY) {
+            return x;
+        }
+        double m = Math.max(x, y);
+        return m + Math.log10(Math.pow(10, x - m) + Math.pow(10, y - m)) + 1e-12;
+    }
+
+    /** An error bound to two significant digits, rounded up, such as {@code 3.1e-18} (0 for zero). */
+    static String errorText(Apfloat error) {
+        if (error.signum() == 0) {
+            return "0";
+        }
+        long scale = error.scale();
+        double mantissa = ApfloatMath.scale(ApfloatMath.abs(error), 1 - scale).doubleValue(); // in [1, 10)
+        java.math.BigDecimal m = new java.math.BigDecimal(mantissa).round(new java.math.MathContext(2, java.math.RoundingMode.CEILING));
+        if (m.compareTo(java.math.BigDecimal.TEN) >= 0) {
+            m = java.math.BigDecimal.ONE;
+            scale++;
+        }
+        return String.format("%.1fe%s%02d", m.doubleValue(), scale - 1 < 0 ? "-" : "+", Math.abs(scale - 1));
+    }
+
     /** A plain-text rendering to at most {@code digits} significant digits: {@code a}, or {@code a + b i}. */
     static String format(Apcomplex z, int digits) {
         Apcomplex r = z.precision(Math.min(digits, z.precision()));

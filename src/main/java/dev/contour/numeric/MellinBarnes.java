@@ -272,7 +272,9 @@ public final class MellinBarnes {
                 steps.add(h.doubleValue());
                 sums.add(t);
                 double value = Magnitudes.log10Abs(t);
-                double target = value - digits;
+                // Half a unit in the last requested place at any scale of the value (also after an exact
+                // factor of at most 1 is applied): the rounded digits are then within one unit.
+                double target = value - digits + Math.log10(0.5);
                 if (j == 0) {
                     h = h.divide(BigDecimal.valueOf(2));
                     continue;

@@ -14,11 +14,16 @@ import dev.contour.eval.ListValue;
 import dev.contour.eval.TermValue;
 import dev.contour.eval.Value;
 import dev.contour.eval.Values;
+import dev.contour.algebra.LinearFactors;
 import dev.contour.mellin.GammaPower;
+import dev.contour.mellin.NamedForm;
+import dev.contour.mellin.Pole;
+import dev.contour.mellin.PoleAnalysis;
 import dev.contour.mellin.MeasureValue;
 import dev.contour.mellin.MellinMeasure;
 import dev.contour.term.Term;
 import dev.contour.term.Terms;
+import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -173,8 +178,26 @@ public final class NumericBuiltins implements BuiltinProvider {
             throw new ContourException("position_value: the amplitude must be a rational function of " + variablesText
                     + ", not " + a.get(0).kind() + " (substitute sigma, tau and parameters first)", a.spanOf(0));
         }
-        RationalFunction amplitude = ev.value().asRationalFunction();
+        RationalFunction amplitude;
+        try {
+            amplitude = m.resolve(ev.value()).asRationalFunction();
+        } catch (ContourException e) {
+            throw new ContourException("position_value: " + e.getMessage(), a.spanOf(0));
+        }
         requireOnly(amplitude.variables(), allowed, a.spanOf(0), "the amplitude", variablesText);
+        List<ContourChoice.AmplitudePole> poles = new ArrayList<>();
+        List<NamedForm> named = twoVariables ? m.poleForms() : List.of(NamedForm.of(s));
+        List<NamedForm> formsOfPoles = new ArrayList<>();
+        boolean curved = false;
+        for (LinearFactors.Factor d : amplitude.denominatorFactors()) {
+            if (d.base().totalDegree() != 1) {
+                curved |= d.base().totalDegree() > 1;
+                continue;
+            }
+            Pole pole = PoleAnalysis.classify(d.base(), d.multiplicity(), named, allowed);
+            poles.add(new ContourChoice.AmplitudePole(d.base(), pole.describe()));
+            formsOfPoles.add(pole.form() == null ? null : named.stream().filter(n -> n.name().equals(pole.form())).findFirst().orElse(null));
+        }
         for (GammaPower g : m.factors()) {
             requireOnly(g.argument().variables(), allowed, a.spanOf(1), "the Gamma argument " + g.argument(), variablesText);
         }
@@ -195,10 +218,40 @@ public final class NumericBuiltins implements BuiltinProvider {
             cs = Values.rational(contour.get(0), cArg.get().span(), "position_value: the contour");
             ct = twoVariables ? Values.rational(contour.get(1), cArg.get().span(), "position_value: the contour") : null;
         } else {
-            Rational[] c = at(a.spanOf(1), () -> ContourChoice.choose(m.factors(), s, twoVariables ? t : null));
+            if (curved) {
+                throw new ContourException("position_value: the amplitude's denominator has a factor that is not linear in " + variablesText
+                        + ", whose poles no straight contour can be placed against by rule; give contour: explicitly", a.spanOf(0));
+            }
+            Rational[] c = at(a.spanOf(0), () -> ContourChoice.choose(m.factors(), poles, s, twoVariables ? t : null));
             cs = c[0];
             ct = twoVariables ? c[1] : null;
             chosen = "contour {" + cs + (twoVariables ? ", " + ct : "") + "} chosen";
+        }
+        // Where the amplitude's poles lie: the contour may not pass through one, and the result says on which side each is.
+        Map<String, Rational> onContour = new HashMap<>();
+        onContour.put(s, cs);
+        if (twoVariables) {
+            onContour.put(t, ct);
+        }
+        List<String> sides = new ArrayList<>();
+        for (int i = 0; i < poles.size(); i++) {
+            ContourChoice.AmplitudePole pole = poles.get(i);
+            NamedForm form = formsOfPoles.get(i);
+            if (pole.factor().evaluate(onContour).signum() == 0) {
+                throw new ContourException("position_value: the contour {" + cs + (twoVariables ? ", " + ct : "")
+                        + "} passes through the amplitude's pole at " + pole.name(), cArg.isPresent() ? cArg.get().span() : a.spanOf(0));
+            }
+            if (form != null) {
+                Rational re = form.form().evaluate(onContour);
+                Rational at = Rational.ZERO.subtract(pole.factor().evaluate(onContour)).divide(coefficientOf(pole.factor(), form, s, t)).add(re);
+                sides.add(pole.name() + (re.compareTo(at) < 0 ? " right of Re " + form.name() + " = " + re : " left of Re " + form.name() + " = " + re));
+            } else {
+                sides.add(pole.name() + (pole.factor().evaluate(onContour).signum() > 0 ? " where it is negative" : " where it is positive"));
+            }
+        }
+        if (!sides.isEmpty()) {
+            String where = "amplitude poles: " + String.join(", ", sides);
+            chosen = chosen == null ? where : chosen + "; " + where;
         }
         IntegrationLimits limits = IntegrationLimits.defaults();
         Optional<Arguments.Argument> within = a.named("within");
@@ -228,6 +281,18 @@ public final class NumericBuiltins implements BuiltinProvider {
         return NumberValue.of(r, digits, true).withNote(chosen);
     }
 
+    /** The factor's rate of change along its named form: factor = k * (form - location), k returned. */
+    private static Rational coefficientOf(dev.contour.algebra.Polynomial factor, NamedForm form, String s, String t) {
+        for (String v : t == null ? List.of(s) : List.of(s, t)) {
+            dev.contour.algebra.Polynomial fc = form.form().coefficient(v, 1);
+            if (!fc.isZero()) {
+                dev.contour.algebra.Polynomial c = factor.coefficient(v, 1);
+                return (c.isZero() ? Rational.ZERO : c.constantValue()).divide(fc.constantValue());
+            }
+        }
+        throw new ContourException("the pole's form does not involve the Mellin variables");
+    }
+
     private static ComplexValue times(ComplexValue x, ComplexValue y) {
         return new ComplexValue(x.re().multiply(y.re()).subtract(x.im().multiply(y.im())),
                 x.re().multiply(y.im()).add(x.im().multiply(y.re())));
@@ -237,10 +302,14 @@ public final class NumericBuiltins implements BuiltinProvider {
         return new ComplexValue(Rational.ONE.subtract(x.re()), x.im().negate());
     }
 
-    /** The result times an exact factor (1/2 or 1/4): the digits claim and the relative error are unchanged. */
+    /**
+     * The result times an exact factor (1/2 or 1/4): the product is taken with two more digits, so it is
+     * exact, and the error bound is scaled with it; the claim is recomputed at the new scale.
+     */
     private static NumericResult scaled(NumericResult r, Apcomplex factor) {
-        return new NumericResult(r.value().multiply(factor).precision(r.value().precision()), r.digits(),
-                r.errorEstimate().multiply(factor.real()).precision(3));
+        Apcomplex v = r.value().precision(r.value().precision() + 2).multiply(factor);
+        double error = Magnitudes.log10Abs(r.errorEstimate().multiply(factor.real()));
+        return NumericResult.of(v, error, r.digits() + 1);
     }
 
     // ---------------------------------------------------------------------------------- helpers

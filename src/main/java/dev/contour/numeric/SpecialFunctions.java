@@ -78,13 +78,12 @@ public final class SpecialFunctions {
             long low = digits + LOW_GUARD + extra;
             Apcomplex coarse = expression.at(low);
             Apcomplex fine = expression.at(digits + HIGH_GUARD + extra);
-            double value = Magnitudes.log10Abs(fine);
             Apcomplex diff = fine.subtract(coarse.precision(fine.precision()));
-            double error = diff.isZero() ? value - low : Magnitudes.log10Abs(diff);
+            double error = diff.isZero() ? Magnitudes.log10Abs(fine) - low : Magnitudes.log10Abs(diff);
             if (fine.isZero()) {
                 return new NumericResult(fine, 0, Magnitudes.pow10(error));
             }
-            reached = (int) Math.floor(value - error);
+            reached = NumericResult.digitsAllowed(fine, error);
             if (reached >= digits) {
                 return NumericResult.of(fine, error, digits + LOW_GUARD);
             }

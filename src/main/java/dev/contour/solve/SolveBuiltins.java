@@ -111,6 +111,14 @@ public final class SolveBuiltins implements BuiltinProvider {
                 others = others.add(Polynomial.variable(d.name()));
             }
         }
+        if (a.named("total").isPresent() && domains.size() >= 3 && domains.stream().allMatch(d -> inner.contains(d.name()))) {
+            // s + t + u = total makes u a function of s and t: residues taken with u held fixed would be wrong.
+            Arguments.Argument last = domains.get(domains.size() - 1);
+            throw new ContourException(a.function() + ": the expression mentions " + String.join(", ", domains.stream()
+                    .map(Arguments.Argument::name).toList()) + " although total: says their sum is fixed; write it without '"
+                    + last.name() + "' first (at (" + last.name() + " = ...)), or leave total: out if they are independent",
+                    a.named("total").get().span());
+        }
         List<Constraint.Poles> poles = new ArrayList<>();
         for (Arguments.Argument d : domains) {
             Polynomial form;

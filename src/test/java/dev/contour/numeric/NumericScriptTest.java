@@ -326,11 +326,13 @@ class NumericScriptTest {
         Apfloat pi = ApfloatMath.pi(40);
         assertDigits(g.multiply(pi).divide(new Apfloat(2)), printed(product, 10), 10);
         bytes.reset();
-        // Cancellation costs digits: Gamma(1/3) - 2.6789385 leaves about 20 - 7 digits.
+        // Cancellation costs digits: Gamma(1/3) - 2.6789385 leaves the digits its error bound allows. The
+        // number keeps the guard digits it computed (its bound is the computed one, about 1e-25), so that is
+        // more than 20 - 7, never more than 20, and every claimed digit is right.
         String diff = run("show value(Gamma(1/3), digits: 20) - 26789385/10000000");
         String line = diff.strip();
         int claimed = Integer.parseInt(line.substring(line.lastIndexOf('(') + 1, line.lastIndexOf(" digits")));
-        assertTrue(claimed >= 12 && claimed <= 13, line);
+        assertTrue(claimed >= 12 && claimed <= 20, line);
         assertDigits(g.subtract(new Apfloat("2.6789385", 45)), printed(diff, claimed), claimed);
         bytes.reset();
         // An integral scaled by a number: 2 * (2/5) from the one-variable binomial integral above.
