@@ -103,7 +103,7 @@ class CancellationTest {
         assertTrue(stoppedMillis < BOUND_MILLIS, "the run took " + stoppedMillis + " ms to stop; half way it was at\n    "
                 + String.join("\n    ", java.util.Arrays.stream(where).limit(25).map(String::valueOf).toList()));
         assertInstanceOf(ContourException.class, thrown.get());
-        assertEquals("interrupted", thrown.get().getMessage());
+        assertTrue(thrown.get().getMessage().endsWith("interrupted"), thrown.get().getMessage());
         assertTrue(((ContourException) thrown.get()).span().isKnown(), "the stop names the statement");
         assertTrue(ForkJoinPool.commonPool().awaitQuiescence(BOUND_MILLIS, TimeUnit.MILLISECONDS),
                 "parallel helpers are still working");
