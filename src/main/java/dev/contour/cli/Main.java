@@ -6,6 +6,7 @@ import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.OutputFormat;
 import dev.contour.eval.RunResult;
 import dev.contour.lang.Diagnostic;
+import dev.contour.lang.SourceFiles;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintStream;
@@ -72,8 +73,14 @@ public final class Main {
             }
             switch (a) {
                 case "--" -> endOfOptions = true;
-                case "--latex" -> options.format = OutputFormat.LATEX;
-                case "--json" -> options.format = OutputFormat.JSON;
+                case "--latex", "--json" -> {
+                    OutputFormat chosen = a.equals("--latex") ? OutputFormat.LATEX : OutputFormat.JSON;
+                    if (options.format != OutputFormat.PLAIN && options.format != chosen) {
+                        err.println("contour: --latex and --json cannot be used together: choose one output format");
+                        return BAD_INPUT;
+                    }
+                    options.format = chosen;
+                }
                 case "--debug" -> options.debug = true;
                 case "--rules" -> {
                     if (index + 1 >= rest.size()) {
@@ -101,6 +108,11 @@ public final class Main {
                     }
                 }
             }
+        }
+        if (options.rules != null && !Files.isDirectory(options.rules)) {
+            err.println("contour: --rules " + options.rules + ": " + (Files.exists(options.rules)
+                    ? "not a folder" : "no such folder") + " (it names the folder where 'use' looks for libraries)");
+            return BAD_INPUT;
         }
         if (operands.isEmpty()) {
             err.print(usage());
@@ -167,9 +179,12 @@ public final class Main {
             }
             String text;
             try {
-                text = Files.readString(Path.of(file), StandardCharsets.UTF_8);
+                text = SourceFiles.read(Path.of(file));
             } catch (NoSuchFileException e) {
                 err.println("contour: no such file: " + file);
+                return BAD_INPUT;
+            } catch (ContourException e) {
+                err.print(Diagnostic.render(e, SourceFiles.readForDisplay(Path.of(file))));
                 return BAD_INPUT;
             } catch (IOException | RuntimeException e) {
                 err.println("contour: cannot read " + file + ": " + e.getMessage());
@@ -204,8 +219,8 @@ public final class Main {
             return text;
         }
         try {
-            return Files.readString(Path.of(e.span().file()), StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException x) {
+            return SourceFiles.readForDisplay(Path.of(e.span().file()));
+        } catch (RuntimeException x) {
             return null;
         }
     }

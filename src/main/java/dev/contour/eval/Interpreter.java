@@ -346,7 +346,9 @@ public final class Interpreter {
         }
         String text;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            text = dev.contour.lang.SourceFiles.read(file);
+        } catch (ContourException e) {
+            throw new ContourException(e.getMessage() + " (read by 'use' at " + u.span() + ")", e.span());
         } catch (IOException e) {
             throw new ContourException("cannot read '" + file + "': " + e.getMessage(), u.span());
         }

@@ -30,7 +30,7 @@ public final class ScriptParser {
     /** Parses a whole script; syntax errors are located {@link ContourException}s. */
     public static List<Stmt> parseScript(String text, String file) {
         ScriptParser adapter = new ScriptParser(file);
-        ScriptContext tree = adapter.twoStage(text, ContourParser::script);
+        ScriptContext tree = adapter.twoStage(SourceFiles.withoutByteOrderMark(text), ContourParser::script);
         List<Stmt> out = new ArrayList<>();
         for (StatementContext s : tree.statement()) {
             adapter.statement(s, out);

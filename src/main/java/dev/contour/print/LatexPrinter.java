@@ -16,6 +16,11 @@ import java.util.TreeMap;
 
 /** LaTeX rendering: {@code \frac}, braced powers, Greek letters by name, {@code \,} between factors. */
 public final class LatexPrinter {
+    /** A variable's name as LaTeX that compiles whatever its characters (subscripts braced, underscores escaped). */
+    public static String name(String variable) {
+        return Names.latex(variable);
+    }
+
     private LatexPrinter() { }
 
     /**
@@ -161,7 +166,7 @@ public final class LatexPrinter {
                 case Terms.POCH -> "\\left(" + args.get(0) + "\\right)_{" + args.get(1) + "}";
                 case Terms.FACTORIAL -> "\\left(" + args.get(0) + "\\right)!";
                 case Terms.BINOM -> "\\binom{" + args.get(0) + "}{" + args.get(1) + "}";
-                default -> "\\mathrm{" + a.function() + "}\\left(" + String.join(", ", args) + "\\right)";
+                default -> Names.upright(a.function()) + "\\left(" + String.join(", ", args) + "\\right)";
             };
         }
         if (t instanceof Term.Sum s) {
