@@ -115,7 +115,7 @@ class InputTrustTest {
                 """));
         assertEquals(Main.OK, r.exitCode(), r.err());
         String last = r.out().lines().map(String::strip).filter(l -> l.startsWith("= ")).reduce((a, b) -> b).orElseThrow();
-        assertTrue(last.contains("wrap(s/2)") && last.contains("twist(s)") && !last.contains("twist(t)")
+        assertTrue(last.contains("wrap(1/2*s)") && last.contains("twist(s)") && !last.contains("twist(t)")
                 && !last.contains("wrap(2)") && last.contains("t + 2"), r.out());
     }
 
