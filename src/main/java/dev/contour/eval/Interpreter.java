@@ -442,6 +442,9 @@ public final class Interpreter {
             if (isAdditive(b) && isAdditive(b.left())) {
                 return additiveChain(b);
             }
+            if (isMultiplicative(b) && isMultiplicative(b.left())) {
+                return multiplicativeChain(b);
+            }
             return Arithmetic.binary(b.operator(), eval(b.left()), eval(b.right()), b.span(), options.limits());
         }
         if (e instanceof Expr.Negate n) {
@@ -543,6 +546,38 @@ public final class Interpreter {
         return new ExprValue(a.isConstant() ? Values.constant(a.constantValue().add(pending)) : a.add(Values.constant(pending)));
     }
 
+    private static boolean isMultiplicative(Expr e) {
+        return e instanceof Expr.Binary b && (b.operator() == Expr.Operator.MULTIPLY || b.operator() == Expr.Operator.DIVIDE);
+    }
+
+    /**
+     * A chain {@code x0 * x1 / x2 * ...} evaluated left to right with a loop instead of one level
+     * of recursion per factor, so a product of any length does not deepen the stack; each step is
+     * the one the plain evaluation takes (the same values, the same error locations).
+     */
+    private Value multiplicativeChain(Expr.Binary chain) {
+        List<Expr.Binary> nodes = new ArrayList<>();
+        Expr e = chain;
+        while (isMultiplicative(e)) {
+            nodes.add((Expr.Binary) e);
+            e = ((Expr.Binary) e).left();
+        }
+        Collections.reverse(nodes);
+        Value acc = eval(e);
+        for (Expr.Binary node : nodes) {
+            try {
+                if (node.operator() == Expr.Operator.DIVIDE && isProduct(node.right())) {
+                    acc = divideByFactors(acc, node);
+                } else {
+                    acc = Arithmetic.binary(node.operator(), acc, eval(node.right()), node.span(), options.limits());
+                }
+            } catch (ContourException x) {
+                throw x.at(node.span());
+            }
+        }
+        return acc;
+    }
+
     private static boolean isProduct(Expr e) {
         return e instanceof Expr.Binary b && b.operator() == Expr.Operator.MULTIPLY;
     }
@@ -602,12 +637,21 @@ public final class Interpreter {
         return inverse;
     }
 
+    /** The factors of a product in order, walking its left spine with a loop (a long product must not recurse). */
     private static void flattenProduct(Expr e, List<Expr> out) {
-        if (isProduct(e)) {
-            flattenProduct(((Expr.Binary) e).left(), out);
-            flattenProduct(((Expr.Binary) e).right(), out);
-        } else {
-            out.add(e);
+        List<Expr> rights = new ArrayList<>();
+        while (isProduct(e)) {
+            rights.add(((Expr.Binary) e).right());
+            e = ((Expr.Binary) e).left();
+        }
+        out.add(e);
+        for (int i = rights.size() - 1; i >= 0; i--) {
+            Expr r = rights.get(i);
+            if (isProduct(r)) {
+                flattenProduct(r, out); // a parenthesised product on the right: one level per pair of brackets
+            } else {
+                out.add(r);
+            }
         }
     }
 
