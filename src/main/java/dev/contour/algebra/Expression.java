@@ -353,6 +353,7 @@ public final class Expression {
         }
         TreeMap<Monomial, RationalFunction> out = new TreeMap<>();
         for (Map.Entry<Monomial, RationalFunction> x : a.terms.entrySet()) {
+            dev.contour.Interrupts.check();
             for (Map.Entry<Monomial, RationalFunction> y : b.terms.entrySet()) {
                 accumulate(out, x.getKey().multiply(y.getKey()), x.getValue().multiply(y.getValue()));
             }

@@ -26,6 +26,20 @@ final class KroneckerProduct {
         return slots <= 8.0 * a.length * b.length && slots < 5e7;
     }
 
+    /**
+     * Whether one big integer product beats the term-by-term one, given the slot width: Java's
+     * BigInteger multiplies huge numbers by Toom-Cook 3 (about n^1.465 word operations, common
+     * practice), so a sparse polynomial (a homogeneous one fills only a diagonal of its dense box)
+     * with long coefficients must not be packed: (s + t)^200 squared packs 160,000 slots of 52 bytes,
+     * minutes of multiplication, where 40,000 coefficient products take milliseconds.
+     */
+    static boolean cheaperThanTerms(long slots, int widthBytes, int termsA, int termsB, int bitsA, int bitsB) {
+        double words = slots * (double) widthBytes / 8;
+        double packed = Math.pow(Math.max(words, 1), 1.465);
+        double byTerms = (double) termsA * termsB * (Math.ceil(bitsA / 64.0) * Math.ceil(bitsB / 64.0) + 8);
+        return packed <= byTerms;
+    }
+
     static int maxExp(int[][] e, int v) {
         int d = 0;
         for (int[] t : e) {
@@ -61,7 +75,7 @@ final class KroneckerProduct {
         int bitsB = maxBits(ib);
         int guard = 64 - Long.numberOfLeadingZeros(Math.min(a.length, b.length)) + 2;
         int width = (bitsA + bitsB + guard + 7) / 8;
-        if ((double) slots * width * 8 > MAX_PACKED_BITS) {
+        if ((double) slots * width * 8 > MAX_PACKED_BITS || !cheaperThanTerms(slots, width, a.length, b.length, bitsA, bitsB)) {
             return null;
         }
         BigInteger x = pack(a, ia, weight, slots, width);

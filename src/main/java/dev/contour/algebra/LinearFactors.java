@@ -238,6 +238,7 @@ public final class LinearFactors {
             if (evalMod(am, r, prime) != 0) {
                 continue;
             }
+            dev.contour.Interrupts.check();
             BigInteger m = bp;
             BigInteger root = BigInteger.valueOf(r);
             // Try the root after every lifting step: small roots (the usual case: poch(s, 400) has

@@ -420,6 +420,9 @@ public final class Polynomial implements Comparable<Polynomial> {
                 break;
             }
             int[] e = head[best];
+            if ((ex.size() & 4095) == 0) {
+                dev.contour.Interrupts.check();
+            }
             Rational c = Rational.ZERO;
             for (int j = best; j < k; j++) {
                 if (head[j] != null && (j == best || Arrays.equals(head[j], e))) {
@@ -477,6 +480,9 @@ public final class Polynomial implements Comparable<Polynomial> {
             HashMap<Key, Rational> acc = new HashMap<>(a.length * b.length * 2);
             for (int i = 0; i < a.length; i++) {
                 for (int j = 0; j < b.length; j++) {
+                    if ((j & 1023) == 0) {
+                        dev.contour.Interrupts.check();
+                    }
                     acc.merge(new Key(shifted(a[i], b[j], n)), ca[i].multiply(cb[j]), Rational::add);
                 }
             }
@@ -495,6 +501,7 @@ public final class Polynomial implements Comparable<Polynomial> {
         int shift = 64 - Integer.numberOfTrailingZeros(cap);
         int count = 0;
         for (int i = 0; i < a.length; i++) {
+            dev.contour.Interrupts.check();
             for (int j = 0; j < b.length; j++) {
                 long key = pa[i] + pb[j];
                 int h = (int) ((key * 0x9E3779B97F4A7C15L) >>> shift);

@@ -2,6 +2,7 @@ package dev.contour.cli;
 
 import dev.contour.ContourException;
 import dev.contour.eval.Interpreter;
+import dev.contour.eval.EvaluationLimits;
 import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.OutputFormat;
 import dev.contour.eval.RunResult;
@@ -14,6 +15,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import java.time.Duration;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -44,6 +46,11 @@ public final class Main {
               --json           print shown values and checks as JSON, one object per line
               --rules DIR      where 'use' looks for libraries (default: the project's rules/);
                                also --rules=DIR
+              --time-budget SECONDS   time one statement may take, printing included
+                               (default 300; 0 for no limit)
+              --memory-budget MIB     heap one statement may add (default: three quarters
+                               of the Java heap; 0 for no limit)
+              --max-digits DIGITS     largest exact number, in decimal digits (default 315652)
               --debug          show Java detail (stack traces) on errors
               -h, --help       this help
               -V, --version    the version
@@ -82,6 +89,17 @@ public final class Main {
                     options.format = chosen;
                 }
                 case "--debug" -> options.debug = true;
+                case "--time-budget", "--memory-budget", "--max-digits" -> {
+                    if (index + 1 >= rest.size()) {
+                        err.println("contour: " + a + " needs a whole number (see 'contour --help')");
+                        return BAD_INPUT;
+                    }
+                    String problem = options.budget(a, rest.get(++index));
+                    if (problem != null) {
+                        err.println("contour: " + problem);
+                        return BAD_INPUT;
+                    }
+                }
                 case "--rules" -> {
                     if (index + 1 >= rest.size()) {
                         err.println("contour: --rules needs a folder (--rules DIR or --rules=DIR)");
@@ -165,6 +183,38 @@ public final class Main {
         OutputFormat format = OutputFormat.PLAIN;
         boolean debug;
         Path rules;
+        EvaluationLimits limits = EvaluationLimits.DEFAULT;
+
+        /** Applies one budget option; returns what is wrong with its value, or null. */
+        String budget(String option, String value) {
+            long n;
+            try {
+                n = Long.parseLong(value);
+            } catch (NumberFormatException e) {
+                return option + " needs a whole number, not '" + value + "'";
+            }
+            if (n < 0) {
+                return option + " cannot be negative (0 means no limit)";
+            }
+            EvaluationLimits l = limits;
+            limits = switch (option) {
+                case "--time-budget" -> l.withStatementBudget(Duration.ofSeconds(Math.min(n, 10_000_000L)), l.statementMemoryMiB());
+                case "--memory-budget" -> l.withStatementBudget(l.statementTime(), n);
+                default -> {
+                    if (n < 1) {
+                        yield null;
+                    }
+                    yield new EvaluationLimits(l.maxExponent(), l.maxSetSize(), l.maxLoopIterations(), l.maxCallDepth(),
+                            l.timeLimit(), l.statementTime(), l.statementMemoryMiB(),
+                            (long) Math.ceil(Math.min(n, 1_000_000_000L) / Math.log10(2)));
+                }
+            };
+            if (limits == null) {
+                limits = l;
+                return "--max-digits needs at least 1";
+            }
+            return null;
+        }
     }
 
     private static int runFiles(List<String> files, Options o, boolean checksOnly, PrintStream out, PrintStream err) {
@@ -190,7 +240,7 @@ public final class Main {
                 err.println("contour: cannot read " + file + ": " + e.getMessage());
                 return BAD_INPUT;
             }
-            InterpreterOptions options = new InterpreterOptions(out, o.format, checksOnly, o.rules, o.debug);
+            InterpreterOptions options = new InterpreterOptions(out, o.format, checksOnly, o.rules, o.debug, o.limits);
             try {
                 RunResult result = new Interpreter(options).run(text, file);
                 failed |= !result.ok();

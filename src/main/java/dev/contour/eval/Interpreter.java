@@ -49,6 +49,8 @@ public final class Interpreter {
     private int fileDepth;
     private int callDepth;
     private long deadline;
+    /** The budget of the top-level statement running now (null between statements). */
+    private StatementBudget budget;
     private long loopIterations;
     private int passed;
     private int failed;
@@ -109,7 +111,7 @@ public final class Interpreter {
             frames = new ArrayDeque<>();
             for (Stmt s : statements) {
                 try {
-                    execute(s);
+                    executeWithinBudget(s);
                 } catch (StackOverflowError e) {
                     throw new ContourException("this statement nests too deeply to evaluate (a very long chain of"
                             + " operations: a sum over a range builds long sums without nesting)", s.span());
@@ -128,6 +130,53 @@ public final class Interpreter {
             callDepth = 0;
         }
         return new RunResult(passed - passedBefore, failed - failedBefore);
+    }
+
+    /**
+     * Runs one top-level statement under its budget of time and memory (printing included); when a
+     * budget runs out, whatever the work was doing, the error names the budget and how to raise it.
+     */
+    private void executeWithinBudget(Stmt s) {
+        EvaluationLimits l = options.limits();
+        long memoryBytes = l.statementMemoryMiB() <= 0 ? 0 : l.statementMemoryMiB() * 1024 * 1024;
+        StatementBudget outer = budget;
+        if (outer != null) {
+            execute(s); // inside a statement already (a library read by 'use'): its budget covers this
+            return;
+        }
+        try (StatementBudget b = StatementBudget.start(l.statementTime(), memoryBytes)) {
+            budget = b;
+            try {
+                execute(s);
+            } catch (RuntimeException | OutOfMemoryError e) {
+                ContourException over = overBudget(b, s.span());
+                if (over != null) {
+                    throw over;
+                }
+                throw e;
+            }
+        } finally {
+            budget = null;
+        }
+    }
+
+    /** The error for a statement stopped by its budget, or null when no budget ran out. */
+    private static ContourException overBudget(StatementBudget b, Span span) {
+        if (b.tripped() == StatementBudget.Reason.TIME) {
+            long seconds = Math.max(1, b.timeAllowed().toSeconds());
+            if (b.timeSource() != null) {
+                return new ContourException("this statement ran past its limit of " + seconds + " second"
+                        + (seconds == 1 ? "" : "s") + " (" + b.timeSource() + ", which covers printing the result too);"
+                        + " raise it there", span);
+            }
+            return new ContourException("this statement ran past its time budget of " + seconds + " seconds; raise it with"
+                    + " --time-budget SECONDS (0 for no limit)", span);
+        }
+        if (b.tripped() == StatementBudget.Reason.MEMORY) {
+            return new ContourException("this statement used more than its memory budget of " + b.memoryLimitBytes() / (1024 * 1024)
+                    + " MiB; raise it with --memory-budget MIB (at most the Java heap: CONTOUR_JAVA_OPTS=-Xmx...)", span);
+        }
+        return null;
     }
 
     /** Evaluates one expression in this session, without printing. */
@@ -250,11 +299,13 @@ public final class Interpreter {
         } else if (s instanceof Stmt.Rule r) {
             registry.ruleSink(r.span()).accept(r);
         } else if (s instanceof Stmt.Derive d) {
+            narrowToWithinClause(d.limits());
             RuleReport report = registry.ruleSink(d.span()).derive(d, ruleContext);
             if (!options.checksOnly()) {
                 options.out().print(report.detail());
             }
         } else if (s instanceof Stmt.CheckByRules c) {
+            narrowToWithinClause(c.limits());
             RuleReport report = registry.ruleSink(c.span()).prove(c, ruleContext);
             if (report.holds()) {
                 passed++;
@@ -264,6 +315,19 @@ public final class Interpreter {
             options.out().print(options.checksOnly() ? report.summary() : report.detail());
         } else {
             throw new IllegalStateException("interpreter: unhandled statement " + s.getClass().getSimpleName());
+        }
+    }
+
+    /** A derivation's 'within N seconds' bounds the whole statement, normalising and printing included. */
+    private void narrowToWithinClause(List<Stmt.RewriteLimit> limits) {
+        if (budget == null) {
+            return;
+        }
+        for (Stmt.RewriteLimit w : limits) {
+            if (w.unit().equals("seconds") || w.unit().equals("second")) {
+                budget.narrow(java.time.Duration.ofSeconds(Math.min(w.amount(), 86_400)),
+                        "'within " + w.amount() + " " + w.unit() + "' at " + w.span());
+            }
         }
     }
 
@@ -942,8 +1006,10 @@ public final class Interpreter {
 
     private void tick(Span span) {
         // The REPL stops a running input by interrupting its thread; honour it at statement and loop boundaries.
-        if (Thread.interrupted()) {
-            throw new ContourException("interrupted", span);
+        try {
+            dev.contour.Interrupts.check();
+        } catch (ContourException stopped) {
+            throw stopped.at(span);
         }
         if (deadline != Long.MAX_VALUE && System.nanoTime() > deadline) {
             throw new ContourException("the script ran past its time limit of " + options.limits().timeLimit().toMillis() + " ms", span);

@@ -56,6 +56,7 @@ public final class LatexPrinter {
         }
         StringBuilder out = new StringBuilder();
         for (Polynomial.Term t : p.terms()) {
+            dev.contour.Interrupts.check();
             boolean negative = t.coefficient().signum() < 0;
             out.append(out.length() == 0 ? (negative ? "-" : "") : (negative ? " - " : " + "));
             out.append(unsignedTerm(t.coefficient().abs(), t.exponents()));
@@ -95,6 +96,7 @@ public final class LatexPrinter {
         }
         StringBuilder out = new StringBuilder();
         for (Map.Entry<Monomial, RationalFunction> t : e.terms().entrySet()) {
+            dev.contour.Interrupts.check();
             PlainPrinter.Signed s = term(t.getKey(), t.getValue(), factored);
             out.append(out.length() == 0 ? (s.negative() ? "-" : "") : (s.negative() ? " - " : " + "));
             out.append(s.text());
