@@ -1016,12 +1016,43 @@ public final class Interpreter {
         }
     }
 
+    /**
+     * The running sum of one monomial's coefficients, kept as a stack of partial sums of
+     * power-of-two sizes (a binary counter): adding term n merges only as many partial sums as n has
+     * trailing one bits, so N terms cost N log N term copies, where adding each to one growing sum
+     * cost N^2 (32,640 terms s^i*t^j took minutes).
+     */
+    private static final class PartialSums {
+        private final List<RationalFunction> sums = new ArrayList<>();
+        private final List<Integer> sizes = new ArrayList<>();
+
+        void push(RationalFunction c) {
+            sums.add(c);
+            sizes.add(1);
+            int top = sums.size() - 1;
+            while (top > 0 && sizes.get(top) >= sizes.get(top - 1)) {
+                dev.contour.Interrupts.check();
+                sums.set(top - 1, sums.get(top - 1).add(sums.remove(top)));
+                sizes.set(top - 1, sizes.get(top - 1) + sizes.remove(top));
+                top--;
+            }
+        }
+
+        RationalFunction total() {
+            RationalFunction t = RationalFunction.ZERO;
+            for (int i = sums.size() - 1; i >= 0; i--) {
+                t = sums.get(i).add(t);
+            }
+            return t;
+        }
+    }
+
     /** Sums values: expressions merge coefficient maps in place; anything else adds pairwise. */
     private static final class Accumulator {
         private final Span span;
         private final EvaluationLimits limits;
         /** In the order first met, which Expression.of sorts cheaply (sums run through their monomials in long ascending runs). */
-        private final Map<dev.contour.algebra.Monomial, dev.contour.algebra.RationalFunction> terms = new LinkedHashMap<>();
+        private final Map<dev.contour.algebra.Monomial, PartialSums> terms = new LinkedHashMap<>();
         private final List<Term> symbolic = new ArrayList<>();
         private Value other;
 
@@ -1032,15 +1063,7 @@ public final class Interpreter {
 
         void add(Value v) {
             if (v instanceof ExprValue e) {
-                e.value().terms().forEach((m, c) -> {
-                    var sum = terms.get(m);
-                    var next = sum == null ? c : sum.add(c);
-                    if (next.isZero()) {
-                        terms.remove(m);
-                    } else {
-                        terms.put(m, next);
-                    }
-                });
+                e.value().terms().forEach((m, c) -> terms.computeIfAbsent(m, x -> new PartialSums()).push(c));
             } else if (v instanceof TermValue t) {
                 symbolic.add(t.value());
             } else {
@@ -1049,7 +1072,14 @@ public final class Interpreter {
         }
 
         Value result() {
-            Value rational = new ExprValue(Expression.of(terms));
+            Map<dev.contour.algebra.Monomial, RationalFunction> sums = new LinkedHashMap<>();
+            terms.forEach((m, partial) -> {
+                RationalFunction c = partial.total();
+                if (!c.isZero()) {
+                    sums.put(m, c);
+                }
+            });
+            Value rational = new ExprValue(Expression.of(sums));
             Value result = rational;
             if (!symbolic.isEmpty()) {
                 List<Term> all = new ArrayList<>(symbolic);

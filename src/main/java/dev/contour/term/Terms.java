@@ -135,11 +135,32 @@ public final class Terms {
             throw new ContourException("factorial of a negative integer (" + n + ") is undefined");
         }
         checkLength(n);
-        BigInteger f = BigInteger.ONE;
-        for (int k = 2; k <= n; k++) {
-            f = f.multiply(BigInteger.valueOf(k));
+        BigInteger[] table = factorials;
+        if (n < table.length) {
+            return table[n];
         }
-        return f;
+        synchronized (Terms.class) {
+            table = factorials;
+            if (n >= table.length) {
+                // grow to at least n + 1, doubling, each entry from the one before: a sum over many
+                // index tuples asks for the same factorials again and again
+                BigInteger[] grown = java.util.Arrays.copyOf(table, Math.max(n + 1, Math.min(2 * table.length, MAX_EXACT_LENGTH + 1)));
+                for (int k = table.length; k < grown.length; k++) {
+                    grown[k] = grown[k - 1].multiply(BigInteger.valueOf(k));
+                }
+                factorials = grown;
+                table = grown;
+            }
+            return table[n];
+        }
+    }
+
+    /** 0!, 1!, ...: computed once, shared (the array is replaced, never changed, once published). */
+    private static volatile BigInteger[] factorials = {BigInteger.ONE, BigInteger.ONE};
+
+    /** binom(n, k) for integers 0 <= k <= n <= {@link #MAX_EXACT_LENGTH}, from the shared factorials. */
+    public static BigInteger binomial(int n, int k) {
+        return factorial(n).divide(factorial(k).multiply(factorial(n - k)));
     }
 
     /** binom(x, k) = x(x-1)...(x-k+1)/k! for an integer k (zero when k < 0). */
