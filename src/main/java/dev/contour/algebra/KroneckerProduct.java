@@ -33,6 +33,28 @@ final class KroneckerProduct {
      * with long coefficients must not be packed: (s + t)^200 squared packs 160,000 slots of 52 bytes,
      * minutes of multiplication, where 40,000 coefficient products take milliseconds.
      */
+    static boolean cheaperThanTerms(int[][] a, Rational[] ca, int[][] b, Rational[] cb, int n) {
+        long slots = 1;
+        for (int v = 0; v < n; v++) {
+            slots *= maxExp(a, v) + maxExp(b, v) + 1;
+        }
+        int bitsA = coefficientBits(ca);
+        int bitsB = coefficientBits(cb);
+        int widthBytes = (bitsA + bitsB + 64 + 7) / 8;
+        return cheaperThanTerms(slots, widthBytes, a.length, b.length, bitsA, bitsB);
+    }
+
+    /** Bits of the largest numerator plus those of the largest denominator (a bound on the packed integers' size). */
+    private static int coefficientBits(Rational[] c) {
+        int num = 0;
+        int den = 0;
+        for (Rational r : c) {
+            num = Math.max(num, r.numerator().bitLength());
+            den = Math.max(den, r.denominator().bitLength());
+        }
+        return num + den;
+    }
+
     static boolean cheaperThanTerms(long slots, int widthBytes, int termsA, int termsB, int bitsA, int bitsB) {
         double words = slots * (double) widthBytes / 8;
         double packed = Math.pow(Math.max(words, 1), 1.465);
@@ -75,7 +97,7 @@ final class KroneckerProduct {
         int bitsB = maxBits(ib);
         int guard = 64 - Long.numberOfLeadingZeros(Math.min(a.length, b.length)) + 2;
         int width = (bitsA + bitsB + guard + 7) / 8;
-        if ((double) slots * width * 8 > MAX_PACKED_BITS || !cheaperThanTerms(slots, width, a.length, b.length, bitsA, bitsB)) {
+        if ((double) slots * width * 8 > MAX_PACKED_BITS) {
             return null;
         }
         BigInteger x = pack(a, ia, weight, slots, width);

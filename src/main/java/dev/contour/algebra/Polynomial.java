@@ -385,7 +385,8 @@ public final class Polynomial implements Comparable<Polynomial> {
             return a.length >= b.length ? mergeProduct(u, a, coeffs, b, o.coeffs) : mergeProduct(u, b, o.coeffs, a, coeffs);
         }
         Polynomial packed;
-        if (KroneckerProduct.worthwhile(a, b, u.length) && (packed = KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs)) != null) {
+        if (KroneckerProduct.worthwhile(a, b, u.length) && KroneckerProduct.cheaperThanTerms(a, coeffs, b, o.coeffs, u.length)
+                && (packed = KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs)) != null) {
             return packed;
         }
         return packedProduct(u, a, coeffs, b, o.coeffs);

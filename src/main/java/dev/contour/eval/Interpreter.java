@@ -166,8 +166,8 @@ public final class Interpreter {
             long seconds = Math.max(1, b.timeAllowed().toSeconds());
             if (b.timeSource() != null) {
                 return new ContourException("this statement ran past its limit of " + seconds + " second"
-                        + (seconds == 1 ? "" : "s") + " (" + b.timeSource() + ", which covers printing the result too);"
-                        + " raise it there", span);
+                        + (seconds == 1 ? "" : "s") + " (" + b.timeSource() + ", which also bounds evaluating the argument and"
+                        + " printing the result, with a grace of a quarter of it or at least a second); raise it there", span);
             }
             return new ContourException("this statement ran past its time budget of " + seconds + " seconds; raise it with"
                     + " --time-budget SECONDS (0 for no limit)", span);

@@ -62,7 +62,10 @@ final class StatementBudget implements AutoCloseable {
      * counted from now; it also covers printing the result. {@code source} names it in the message.
      */
     void narrow(Duration time, String source) {
-        long candidate = System.nanoTime() + time.toNanos();
+        // A grace of a quarter (at least a second) past the clause's own time: the rewriter checks its
+        // limit itself and then says which rule was firing, which is the better message when it can.
+        Duration grace = time.dividedBy(4).compareTo(Duration.ofSeconds(1)) < 0 ? Duration.ofSeconds(1) : time.dividedBy(4);
+        long candidate = System.nanoTime() + time.plus(grace).toNanos();
         if (candidate < deadlineNanos) {
             deadlineNanos = candidate;
             timeAllowed = time;
