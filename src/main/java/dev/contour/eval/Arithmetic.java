@@ -123,6 +123,9 @@ public final class Arithmetic {
     /** Most terms a power may expand to, estimated before expanding (so a typo cannot hang a run). */
     static final double MAX_EXPANDED_TERMS = 2e6;
 
+    /** Most coefficient products the last squaring of a power may take (a fixed limit of one power). */
+    static final double MAX_TERM_PRODUCTS = 2e9;
+
     /**
      * Rejects powers whose expansion would be enormous: a polynomial of degree d in k variables
      * raised to e has at most binom(k + d*e, k) terms.
@@ -156,6 +159,17 @@ public final class Arithmetic {
         }
         if (bound > MAX_EXPANDED_TERMS) {
             throw new ContourException("the power ^" + e + " would expand to too many terms", span);
+        }
+        // The last squaring multiplies two copies of the half power: about (terms of p^(e/2))^2
+        // coefficient products, whatever the memory; past MAX_TERM_PRODUCTS that is minutes of work.
+        double half = 1;
+        for (int i = 1; i <= k && half <= MAX_EXPANDED_TERMS; i++) {
+            half = half * (n / 2 + i) / i;
+        }
+        if (half * half > MAX_TERM_PRODUCTS) {
+            throw new ContourException(String.format("the power ^%d would expand to up to %,.0f terms, and its last step alone"
+                    + " would take about %.1e coefficient products, past the limit of %.0e for one power (minutes of work);"
+                    + " expand a smaller power, or keep the factor unexpanded", e, bound, half * half, MAX_TERM_PRODUCTS), span);
         }
         double bytes = bound * (bits / 8 + 64);
         if (limits.maxExpansionBytes() > 0 && bytes > limits.maxExpansionBytes()) {

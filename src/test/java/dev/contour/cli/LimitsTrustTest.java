@@ -28,10 +28,16 @@ class LimitsTrustTest {
     @Test
     void aPowerTooLargeToExpandIsRefusedBeforeExpanding() throws IOException {
         String file = script("big.ctr", "vars s, t\nlet x = (s + t + 1)^1000\n");
-        CliRunner r = CliRunner.run("run", "--memory-budget", "400", file);
+        CliRunner r = CliRunner.run("run", file);
         assertEquals(Main.BAD_INPUT, r.exitCode(), r.err());
-        assertTrue(r.err().startsWith(file + ":2:9: the power ^1000 would expand to up to 501,501 terms"), r.err());
-        assertTrue(r.err().contains("raise it with --memory-budget MIB"), r.err());
+        assertTrue(r.err().startsWith(file + ":2:9: the power ^1000 would expand to up to 501,501 terms, and its last step"
+                + " alone would take about 1.6e+10 coefficient products"), r.err());
+        // under the work limit, the memory estimate decides: (s + t + 1)^500 needs about 27 MiB
+        String smaller = script("smaller.ctr", "vars s, t\nlet x = (s + t + 1)^500\n");
+        CliRunner m = CliRunner.run("run", "--memory-budget", "100", smaller);
+        assertEquals(Main.BAD_INPUT, m.exitCode(), m.err());
+        assertTrue(m.err().startsWith(smaller + ":2:9: the power ^500 would expand to up to 125,751 terms"), m.err());
+        assertTrue(m.err().contains("raise it with --memory-budget MIB"), m.err());
     }
 
     @Test
