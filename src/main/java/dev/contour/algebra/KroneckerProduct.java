@@ -27,6 +27,42 @@ final class KroneckerProduct {
         return slots <= 8.0 * a.length * b.length && slots < 5e7;
     }
 
+    /**
+     * Whether one big integer product beats the term-by-term one, given the slot width: Java's
+     * BigInteger multiplies huge numbers by Toom-Cook 3 (about n^1.465 word operations, common
+     * practice), so a sparse polynomial (a homogeneous one fills only a diagonal of its dense box)
+     * with long coefficients must not be packed: (s + t)^200 squared packs 160,000 slots of 52 bytes,
+     * minutes of multiplication, where 40,000 coefficient products take milliseconds.
+     */
+    static boolean cheaperThanTerms(int[][] a, Rational[] ca, int[][] b, Rational[] cb, int n) {
+        long slots = 1;
+        for (int v = 0; v < n; v++) {
+            slots *= maxExp(a, v) + maxExp(b, v) + 1;
+        }
+        int bitsA = coefficientBits(ca);
+        int bitsB = coefficientBits(cb);
+        int widthBytes = (bitsA + bitsB + 64 + 7) / 8;
+        return cheaperThanTerms(slots, widthBytes, a.length, b.length, bitsA, bitsB);
+    }
+
+    /** Bits of the largest numerator plus those of the largest denominator (a bound on the packed integers' size). */
+    private static int coefficientBits(Rational[] c) {
+        int num = 0;
+        int den = 0;
+        for (Rational r : c) {
+            num = Math.max(num, r.numerator().bitLength());
+            den = Math.max(den, r.denominator().bitLength());
+        }
+        return num + den;
+    }
+
+    static boolean cheaperThanTerms(long slots, int widthBytes, int termsA, int termsB, int bitsA, int bitsB) {
+        double words = slots * (double) widthBytes / 8;
+        double packed = Math.pow(Math.max(words, 1), 1.465);
+        double byTerms = (double) termsA * termsB * (Math.ceil(bitsA / 64.0) * Math.ceil(bitsB / 64.0) + 8);
+        return packed <= byTerms;
+    }
+
     static int maxExp(int[][] e, int v) {
         int d = 0;
         for (int[] t : e) {

@@ -238,17 +238,26 @@ public final class LinearFactors {
             if (evalMod(am, r, prime) != 0) {
                 continue;
             }
+            dev.contour.Cancellation.check();
             BigInteger m = bp;
             BigInteger root = BigInteger.valueOf(r);
-            while (m.compareTo(need) <= 0) {
+            // Try the root after every lifting step: small roots (the usual case: poch(s, 400) has
+            // roots 0, -1, ..., -399 but coefficients of thousands of bits) are found long before the
+            // modulus reaches the coefficient bound; a cheap modular test screens each candidate
+            // before the exact one. Horner's rule runs modulo m, so numbers stay the modulus's size.
+            while (true) {
+                Rational cand = reconstruct(root, m);
+                if (cand != null && maybeRoot(a, cand) && isRoot(a, cand)) {
+                    roots.add(cand);
+                    break;
+                }
+                if (m.compareTo(need) > 0) {
+                    break;
+                }
                 m = m.multiply(m);
-                BigInteger fr = horner(a, root).mod(m);
-                BigInteger dfr = hornerDerivative(a, root).mod(m);
+                BigInteger fr = hornerMod(a, root, m);
+                BigInteger dfr = hornerDerivativeMod(a, root, m);
                 root = root.subtract(fr.multiply(dfr.modInverse(m))).mod(m);
-            }
-            Rational cand = reconstruct(root, m);
-            if (cand != null && isRoot(a, cand)) {
-                roots.add(cand);
             }
         }
         return roots;
@@ -286,18 +295,36 @@ public final class LinearFactors {
         return v;
     }
 
-    private static BigInteger horner(BigInteger[] a, BigInteger x) {
+    /** A prime below 2^31 (common practice: the largest such prime is 2^31 - 1; any prime works here). */
+    private static final long SCREEN_PRIME = 2_147_483_647L;
+
+    /** False when u/v is certainly not a root (its value modulo a large prime is not zero). */
+    private static boolean maybeRoot(BigInteger[] a, Rational r) {
+        BigInteger p = BigInteger.valueOf(SCREEN_PRIME);
+        BigInteger v = r.denominator().mod(p);
+        if (v.signum() == 0) {
+            return true;
+        }
+        long x = r.numerator().mod(p).multiply(v.modInverse(p)).mod(p).longValue();
+        long acc = 0;
+        for (int k = a.length - 1; k >= 0; k--) {
+            acc = (acc * x % SCREEN_PRIME + a[k].mod(p).longValue()) % SCREEN_PRIME; // operands below 2^31
+        }
+        return acc == 0;
+    }
+
+    private static BigInteger hornerMod(BigInteger[] a, BigInteger x, BigInteger m) {
         BigInteger v = BigInteger.ZERO;
         for (int k = a.length - 1; k >= 0; k--) {
-            v = v.multiply(x).add(a[k]);
+            v = v.multiply(x).add(a[k]).mod(m);
         }
         return v;
     }
 
-    private static BigInteger hornerDerivative(BigInteger[] a, BigInteger x) {
+    private static BigInteger hornerDerivativeMod(BigInteger[] a, BigInteger x, BigInteger m) {
         BigInteger v = BigInteger.ZERO;
         for (int k = a.length - 1; k >= 1; k--) {
-            v = v.multiply(x).add(a[k].multiply(BigInteger.valueOf(k)));
+            v = v.multiply(x).add(a[k].multiply(BigInteger.valueOf(k))).mod(m);
         }
         return v;
     }

@@ -387,7 +387,8 @@ public final class Polynomial implements Comparable<Polynomial> {
             return a.length >= b.length ? mergeProduct(u, a, coeffs, b, o.coeffs) : mergeProduct(u, b, o.coeffs, a, coeffs);
         }
         Polynomial packed;
-        if (KroneckerProduct.worthwhile(a, b, u.length) && (packed = KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs)) != null) {
+        if (KroneckerProduct.worthwhile(a, b, u.length) && KroneckerProduct.cheaperThanTerms(a, coeffs, b, o.coeffs, u.length)
+                && (packed = KroneckerProduct.multiply(u, a, coeffs, b, o.coeffs)) != null) {
             return packed;
         }
         return packedProduct(u, a, coeffs, b, o.coeffs);
@@ -422,6 +423,9 @@ public final class Polynomial implements Comparable<Polynomial> {
                 break;
             }
             int[] e = head[best];
+            if ((ex.size() & 4095) == 0) {
+                dev.contour.Cancellation.check();
+            }
             Rational c = Rational.ZERO;
             for (int j = best; j < k; j++) {
                 if (head[j] != null && (j == best || Arrays.equals(head[j], e))) {
@@ -480,6 +484,9 @@ public final class Polynomial implements Comparable<Polynomial> {
             for (int i = 0; i < a.length; i++) {
                 Cancellation.check();
                 for (int j = 0; j < b.length; j++) {
+                    if ((j & 1023) == 0) {
+                        dev.contour.Cancellation.check();
+                    }
                     acc.merge(new Key(shifted(a[i], b[j], n)), ca[i].multiply(cb[j]), Rational::add);
                 }
             }

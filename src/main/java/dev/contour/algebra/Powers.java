@@ -11,6 +11,7 @@ final class Powers {
         T result = one;
         int e = exponent;
         while (e > 0) {
+            dev.contour.Cancellation.check();
             if ((e & 1) != 0) {
                 result = multiply.apply(result, base);
             }

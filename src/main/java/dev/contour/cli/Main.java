@@ -2,10 +2,12 @@ package dev.contour.cli;
 
 import dev.contour.ContourException;
 import dev.contour.eval.Interpreter;
+import dev.contour.eval.EvaluationLimits;
 import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.OutputFormat;
 import dev.contour.eval.RunResult;
 import dev.contour.lang.Diagnostic;
+import dev.contour.lang.SourceFiles;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintStream;
@@ -13,6 +15,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
+import java.time.Duration;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -45,6 +48,11 @@ public final class Main {
                                also --rules=DIR
               --report FILE.tex  also write the run as a LaTeX derivation report (pole maps
                                shown become figures beside it); also --report=FILE.tex
+              --time-budget SECONDS   time one statement may take, printing included
+                               (default 300; 0 for no limit)
+              --memory-budget MIB     heap one statement may add (default: three quarters
+                               of the Java heap; 0 for no limit)
+              --max-digits DIGITS     largest exact number, in decimal digits (default 315652)
               --debug          show Java detail (stack traces) on errors
               -h, --help       this help
               -V, --version    the version
@@ -75,9 +83,26 @@ public final class Main {
             }
             switch (a) {
                 case "--" -> endOfOptions = true;
-                case "--latex" -> options.format = OutputFormat.LATEX;
-                case "--json" -> options.format = OutputFormat.JSON;
+                case "--latex", "--json" -> {
+                    OutputFormat chosen = a.equals("--latex") ? OutputFormat.LATEX : OutputFormat.JSON;
+                    if (options.format != OutputFormat.PLAIN && options.format != chosen) {
+                        err.println("contour: --latex and --json cannot be used together: choose one output format");
+                        return BAD_INPUT;
+                    }
+                    options.format = chosen;
+                }
                 case "--debug" -> options.debug = true;
+                case "--time-budget", "--memory-budget", "--max-digits" -> {
+                    if (index + 1 >= rest.size()) {
+                        err.println("contour: " + a + " needs a whole number (see 'contour --help')");
+                        return BAD_INPUT;
+                    }
+                    String problem = options.budget(a, rest.get(++index));
+                    if (problem != null) {
+                        err.println("contour: " + problem);
+                        return BAD_INPUT;
+                    }
+                }
                 case "--rules" -> {
                     if (index + 1 >= rest.size()) {
                         err.println("contour: --rules needs a folder (--rules DIR or --rules=DIR)");
@@ -113,6 +138,11 @@ public final class Main {
                     }
                 }
             }
+        }
+        if (options.rules != null && !Files.isDirectory(options.rules)) {
+            err.println("contour: --rules " + options.rules + ": " + (Files.exists(options.rules)
+                    ? "not a folder" : "no such folder") + " (it names the folder where 'use' looks for libraries)");
+            return BAD_INPUT;
         }
         if (operands.isEmpty()) {
             err.print(usage());
@@ -166,6 +196,38 @@ public final class Main {
         boolean debug;
         Path rules;
         Path report;
+        EvaluationLimits limits = EvaluationLimits.DEFAULT;
+
+        /** Applies one budget option; returns what is wrong with its value, or null. */
+        String budget(String option, String value) {
+            long n;
+            try {
+                n = Long.parseLong(value);
+            } catch (NumberFormatException e) {
+                return option + " needs a whole number, not '" + value + "'";
+            }
+            if (n < 0) {
+                return option + " cannot be negative (0 means no limit)";
+            }
+            EvaluationLimits l = limits;
+            limits = switch (option) {
+                case "--time-budget" -> l.withStatementBudget(Duration.ofSeconds(Math.min(n, 10_000_000L)), l.statementMemoryMiB());
+                case "--memory-budget" -> l.withStatementBudget(l.statementTime(), n);
+                default -> {
+                    if (n < 1) {
+                        yield null;
+                    }
+                    yield new EvaluationLimits(l.maxExponent(), l.maxSetSize(), l.maxLoopIterations(), l.maxCallDepth(),
+                            l.timeLimit(), l.statementTime(), l.statementMemoryMiB(),
+                            (long) Math.ceil(Math.min(n, 1_000_000_000L) / Math.log10(2)));
+                }
+            };
+            if (limits == null) {
+                limits = l;
+                return "--max-digits needs at least 1";
+            }
+            return null;
+        }
     }
 
     private static int runFiles(List<String> files, Options o, boolean checksOnly, PrintStream out, PrintStream err) {
@@ -203,15 +265,18 @@ public final class Main {
             }
             String text;
             try {
-                text = Files.readString(Path.of(file), StandardCharsets.UTF_8);
+                text = SourceFiles.read(Path.of(file));
             } catch (NoSuchFileException e) {
                 err.println("contour: no such file: " + file);
+                return BAD_INPUT;
+            } catch (ContourException e) {
+                err.print(Diagnostic.render(e, SourceFiles.readForDisplay(Path.of(file))));
                 return BAD_INPUT;
             } catch (IOException | RuntimeException e) {
                 err.println("contour: cannot read " + file + ": " + e.getMessage());
                 return BAD_INPUT;
             }
-            InterpreterOptions options = new InterpreterOptions(out, o.format, checksOnly, o.rules, o.debug);
+            InterpreterOptions options = new InterpreterOptions(out, o.format, checksOnly, o.rules, o.debug, o.limits);
             try {
                 Interpreter interpreter = new Interpreter(options);
                 if (report != null) {
@@ -248,8 +313,8 @@ public final class Main {
             return text;
         }
         try {
-            return Files.readString(Path.of(e.span().file()), StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException x) {
+            return SourceFiles.readForDisplay(Path.of(e.span().file()));
+        } catch (RuntimeException x) {
             return null;
         }
     }

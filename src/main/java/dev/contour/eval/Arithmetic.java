@@ -94,6 +94,9 @@ public final class Arithmetic {
 
     private static Expression expressions(Operator op, Expression a, Expression b, Span span, EvaluationLimits limits) {
         if (a.isConstant() && b.isConstant() && op != Operator.POWER) {
+            if (op == Operator.MULTIPLY || op == Operator.DIVIDE) {
+                checkNumberSize(bits(a.constantValue()) + bits(b.constantValue()), "this product", span, limits);
+            }
             return numbers(op, a.constantValue(), b.constantValue(), span);
         }
         return switch (op) {
@@ -111,7 +114,7 @@ public final class Arithmetic {
                 if (e < 0 && a.isZero()) {
                     throw new ContourException("zero to a negative power", span);
                 }
-                checkExpansionSize(a, e, span);
+                checkExpansionSize(a, e, span, limits);
                 yield a.pow(e);
             }
         };
@@ -120,12 +123,26 @@ public final class Arithmetic {
     /** Most terms a power may expand to, estimated before expanding (so a typo cannot hang a run). */
     static final double MAX_EXPANDED_TERMS = 2e6;
 
+    /** Most coefficient products the last squaring of a power may take (a fixed limit of one power). */
+    static final double MAX_TERM_PRODUCTS = 2e9;
+
     /**
      * Rejects powers whose expansion would be enormous: a polynomial of degree d in k variables
      * raised to e has at most binom(k + d*e, k) terms.
      */
-    private static void checkExpansionSize(Expression a, int e, Span span) {
-        if (a.terms().size() <= 1 && (a.isZero() || isMonomialCoefficient(a))) {
+    private static void checkExpansionSize(Expression a, int e, Span span, EvaluationLimits limits) {
+        if (a.isZero() || e == 0) {
+            return;
+        }
+        // Coefficients of p^e are bounded by (sum of |coefficients of p|)^e: about |e| times the bits of
+        // the largest coefficient plus log2 of the number of terms (common practice for bounding heights).
+        double height = 0;
+        for (var t : a.terms().values()) {
+            height = Math.max(height, height(t.numerator()) + height(t.denominator()));
+        }
+        double bits = height * Math.abs((double) e);
+        checkNumberSize(bits, "the power ^" + e, span, limits);
+        if (a.terms().size() <= 1 && isMonomialCoefficient(a)) {
             return;
         }
         int k = a.innerVariables().size() + a.collectedVariables().size();
@@ -142,6 +159,47 @@ public final class Arithmetic {
         }
         if (bound > MAX_EXPANDED_TERMS) {
             throw new ContourException("the power ^" + e + " would expand to too many terms", span);
+        }
+        // The last squaring multiplies two copies of the half power: about (terms of p^(e/2))^2
+        // coefficient products, whatever the memory; past MAX_TERM_PRODUCTS that is minutes of work.
+        double half = 1;
+        for (int i = 1; i <= k && half <= MAX_EXPANDED_TERMS; i++) {
+            half = half * (n / 2 + i) / i;
+        }
+        if (half * half > MAX_TERM_PRODUCTS) {
+            throw new ContourException(String.format("the power ^%d would expand to up to %,.0f terms, and its last step alone"
+                    + " would take about %.1e coefficient products, past the limit of %.0e for one power (minutes of work);"
+                    + " expand a smaller power, or keep the factor unexpanded", e, bound, half * half, MAX_TERM_PRODUCTS), span);
+        }
+        double bytes = bound * (bits / 8 + 64);
+        if (limits.maxExpansionBytes() > 0 && bytes > limits.maxExpansionBytes()) {
+            throw new ContourException(String.format("the power ^%d would expand to up to %,.0f terms with coefficients of up to"
+                    + " %,.0f bits (about %,.0f MiB), past the limit of %,d MiB for one expansion (a quarter of the"
+                    + " statement's memory budget; raise it with --memory-budget MIB)", e, bound, bits, bytes / (1 << 20),
+                    limits.maxExpansionBytes() >> 20), span);
+        }
+    }
+
+    /** Bits to write a number's numerator and denominator. */
+    private static long bits(Rational r) {
+        return r.numerator().bitLength() + (r.isInteger() ? 0L : r.denominator().bitLength());
+    }
+
+    /** log2 of the sum of the absolute values of the coefficients (each over its own denominator), rounded up. */
+    private static double height(dev.contour.algebra.Polynomial p) {
+        long most = 0;
+        for (var t : p.terms()) {
+            most = Math.max(most, bits(t.coefficient()));
+        }
+        return p.isConstant() && p.terms().size() == 1 && most <= 1 ? 0 : most + Math.log(Math.max(1, p.terms().size())) / Math.log(2);
+    }
+
+    /** Refuses to build an exact number past the limit of bits, before building it. */
+    private static void checkNumberSize(double bits, String what, Span span, EvaluationLimits limits) {
+        if (bits > limits.maxNumberBits()) {
+            throw new ContourException(String.format("%s would build exact numbers of about %,.0f digits, past the limit of"
+                    + " %,d digits; raise it with --max-digits DIGITS", what, bits * Math.log10(2),
+                    (long) (limits.maxNumberBits() * Math.log10(2))), span);
         }
     }
 

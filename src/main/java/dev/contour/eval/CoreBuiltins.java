@@ -4,6 +4,7 @@ import dev.contour.ContourException;
 import dev.contour.Span;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.Monomial;
+import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.print.CollectedView;
 import dev.contour.term.Term;
@@ -33,6 +34,10 @@ final class CoreBuiltins {
 
     /** {@code function(args)} as a normalised term, an expression whenever it is rational. */
     static Value symbolic(String function, List<Value> args, Span span) {
+        Value exact = exactInteger(function, args);
+        if (exact != null) {
+            return exact;
+        }
         List<Term> terms = new ArrayList<>();
         for (Value v : args) {
             if (!Arithmetic.isSymbolic(v)) {
@@ -45,6 +50,35 @@ final class CoreBuiltins {
         } catch (ContourException e) {
             throw e.at(span);
         }
+    }
+
+    /**
+     * n! and binom(n, k) at small non-negative integers straight from the shared table of factorials,
+     * without building and normalising a term (a closed form summed over tens of thousands of index
+     * tuples calls them once per tuple); null for every other case, which takes the general path.
+     */
+    private static Value exactInteger(String function, List<Value> args) {
+        if (!function.equals(Terms.FACTORIAL) && !function.equals(Terms.BINOM)) {
+            return null;
+        }
+        int[] n = new int[args.size()];
+        for (int i = 0; i < n.length; i++) {
+            if (!(args.get(i) instanceof ExprValue e) || !e.value().isConstant()) {
+                return null;
+            }
+            Rational r = e.value().constantValue();
+            if (!r.isInteger() || r.signum() < 0 || r.numerator().bitLength() > 20 || r.intValueExact() > Terms.MAX_EXACT_LENGTH) {
+                return null;
+            }
+            n[i] = r.intValueExact();
+        }
+        if (function.equals(Terms.FACTORIAL)) {
+            return new ExprValue(Expression.constant(Rational.of(Terms.factorial(n[0]))));
+        }
+        if (n[1] > n[0]) {
+            return null;
+        }
+        return new ExprValue(Expression.constant(Rational.of(Terms.binomial(n[0], n[1]))));
     }
 
     private static Value coefficient(Arguments a, Span span) {

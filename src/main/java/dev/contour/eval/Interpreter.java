@@ -52,6 +52,8 @@ public final class Interpreter {
     private Path directory;
     private int fileDepth;
     private int callDepth;
+    /** The budget of the top-level statement running now (null between statements). */
+    private StatementBudget budget;
     private long loopIterations;
     private int passed;
     private int failed;
@@ -148,7 +150,7 @@ public final class Interpreter {
             frames = new ArrayDeque<>();
             for (Stmt s : statements) {
                 try {
-                    execute(s);
+                    executeWithinBudget(s);
                     record(s, sourceText);
                 } catch (StackOverflowError e) {
                     throw new ContourException("this statement nests too deeply to evaluate (a very long chain of"
@@ -202,6 +204,53 @@ public final class Interpreter {
         }
         int start = text.offsetByCodePoints(at, span.column() - 1);
         return text.substring(start, text.offsetByCodePoints(start, span.length()));
+    }
+
+    /**
+     * Runs one top-level statement under its budget of time and memory (printing included); when a
+     * budget runs out, whatever the work was doing, the error names the budget and how to raise it.
+     */
+    private void executeWithinBudget(Stmt s) {
+        EvaluationLimits l = options.limits();
+        long memoryBytes = l.statementMemoryMiB() <= 0 ? 0 : l.statementMemoryMiB() * 1024 * 1024;
+        StatementBudget outer = budget;
+        if (outer != null) {
+            execute(s); // inside a statement already (a library read by 'use'): its budget covers this
+            return;
+        }
+        try (StatementBudget b = StatementBudget.start(l.statementTime(), memoryBytes)) {
+            budget = b;
+            try {
+                execute(s);
+            } catch (RuntimeException | OutOfMemoryError e) {
+                ContourException over = overBudget(b, s.span());
+                if (over != null) {
+                    throw over;
+                }
+                throw e;
+            }
+        } finally {
+            budget = null;
+        }
+    }
+
+    /** The error for a statement stopped by its budget, or null when no budget ran out. */
+    private static ContourException overBudget(StatementBudget b, Span span) {
+        if (b.tripped() == StatementBudget.Reason.TIME) {
+            long seconds = Math.max(1, b.timeAllowed().toSeconds());
+            if (b.timeSource() != null) {
+                return new ContourException("this statement ran past its limit of " + seconds + " second"
+                        + (seconds == 1 ? "" : "s") + " (" + b.timeSource() + ", which also bounds evaluating the argument and"
+                        + " printing the result, with a grace of a quarter of it or at least a second); raise it there", span);
+            }
+            return new ContourException("this statement ran past its time budget of " + seconds + " seconds; raise it with"
+                    + " --time-budget SECONDS (0 for no limit)", span);
+        }
+        if (b.tripped() == StatementBudget.Reason.MEMORY) {
+            return new ContourException("this statement used more than its memory budget of " + b.memoryLimitBytes() / (1024 * 1024)
+                    + " MiB; raise it with --memory-budget MIB (at most the Java heap: CONTOUR_JAVA_OPTS=-Xmx...)", span);
+        }
+        return null;
     }
 
     /** Evaluates one expression in this session, without printing. */
@@ -417,11 +466,13 @@ public final class Interpreter {
         } else if (s instanceof Stmt.Rule r) {
             registry.ruleSink(r.span()).accept(r);
         } else if (s instanceof Stmt.Derive d) {
+            narrowToWithinClause(d.limits());
             RuleReport report = registry.ruleSink(d.span()).derive(d, ruleContext);
             if (!options.checksOnly()) {
                 options.out().print(report.detail());
             }
         } else if (s instanceof Stmt.CheckByRules c) {
+            narrowToWithinClause(c.limits());
             RuleReport report = registry.ruleSink(c.span()).prove(c, ruleContext);
             if (report.holds()) {
                 passed++;
@@ -463,6 +514,19 @@ public final class Interpreter {
         }
         throw new ContourException("'in' takes a measure (its s, t and eliminated variable) or pairs {name, linear form}, not "
                 + Values.describe(v), span);
+    }
+
+    /** A derivation's 'within N seconds' bounds the whole statement, normalising and printing included. */
+    private void narrowToWithinClause(List<Stmt.RewriteLimit> limits) {
+        if (budget == null) {
+            return;
+        }
+        for (Stmt.RewriteLimit w : limits) {
+            if (w.unit().equals("seconds") || w.unit().equals("second")) {
+                budget.narrow(java.time.Duration.ofSeconds(Math.min(w.amount(), 86_400)),
+                        "'within " + w.amount() + " " + w.unit() + "' at " + w.span());
+            }
+        }
     }
 
     private String context() {
@@ -557,7 +621,9 @@ public final class Interpreter {
         }
         String text;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            text = dev.contour.lang.SourceFiles.read(file);
+        } catch (ContourException e) {
+            throw new ContourException(e.getMessage() + " (read by 'use' at " + u.span() + ")", e.span());
         } catch (IOException e) {
             throw new ContourException("cannot read '" + file + "': " + e.getMessage(), u.span());
         }
@@ -663,6 +729,9 @@ public final class Interpreter {
             if (isAdditive(b) && isAdditive(b.left())) {
                 return additiveChain(b);
             }
+            if (isMultiplicative(b) && isMultiplicative(b.left())) {
+                return multiplicativeChain(b);
+            }
             return Arithmetic.binary(b.operator(), eval(b.left()), eval(b.right()), b.span(), options.limits());
         }
         if (e instanceof Expr.Negate n) {
@@ -764,6 +833,38 @@ public final class Interpreter {
         return new ExprValue(a.isConstant() ? Values.constant(a.constantValue().add(pending)) : a.add(Values.constant(pending)));
     }
 
+    private static boolean isMultiplicative(Expr e) {
+        return e instanceof Expr.Binary b && (b.operator() == Expr.Operator.MULTIPLY || b.operator() == Expr.Operator.DIVIDE);
+    }
+
+    /**
+     * A chain {@code x0 * x1 / x2 * ...} evaluated left to right with a loop instead of one level
+     * of recursion per factor, so a product of any length does not deepen the stack; each step is
+     * the one the plain evaluation takes (the same values, the same error locations).
+     */
+    private Value multiplicativeChain(Expr.Binary chain) {
+        List<Expr.Binary> nodes = new ArrayList<>();
+        Expr e = chain;
+        while (isMultiplicative(e)) {
+            nodes.add((Expr.Binary) e);
+            e = ((Expr.Binary) e).left();
+        }
+        Collections.reverse(nodes);
+        Value acc = eval(e);
+        for (Expr.Binary node : nodes) {
+            try {
+                if (node.operator() == Expr.Operator.DIVIDE && isProduct(node.right())) {
+                    acc = divideByFactors(acc, node);
+                } else {
+                    acc = Arithmetic.binary(node.operator(), acc, eval(node.right()), node.span(), options.limits());
+                }
+            } catch (ContourException x) {
+                throw x.at(node.span());
+            }
+        }
+        return acc;
+    }
+
     private static boolean isProduct(Expr e) {
         return e instanceof Expr.Binary b && b.operator() == Expr.Operator.MULTIPLY;
     }
@@ -823,12 +924,21 @@ public final class Interpreter {
         return inverse;
     }
 
+    /** The factors of a product in order, walking its left spine with a loop (a long product must not recurse). */
     private static void flattenProduct(Expr e, List<Expr> out) {
-        if (isProduct(e)) {
-            flattenProduct(((Expr.Binary) e).left(), out);
-            flattenProduct(((Expr.Binary) e).right(), out);
-        } else {
-            out.add(e);
+        List<Expr> rights = new ArrayList<>();
+        while (isProduct(e)) {
+            rights.add(((Expr.Binary) e).right());
+            e = ((Expr.Binary) e).left();
+        }
+        out.add(e);
+        for (int i = rights.size() - 1; i >= 0; i--) {
+            Expr r = rights.get(i);
+            if (isProduct(r)) {
+                flattenProduct(r, out); // a parenthesised product on the right: one level per pair of brackets
+            } else {
+                out.add(r);
+            }
         }
     }
 
@@ -1132,12 +1242,43 @@ public final class Interpreter {
         }
     }
 
+    /**
+     * The running sum of one monomial's coefficients, kept as a stack of partial sums of
+     * power-of-two sizes (a binary counter): adding term n merges only as many partial sums as n has
+     * trailing one bits, so N terms cost N log N term copies, where adding each to one growing sum
+     * cost N^2 (32,640 terms s^i*t^j took minutes).
+     */
+    private static final class PartialSums {
+        private final List<RationalFunction> sums = new ArrayList<>();
+        private final List<Integer> sizes = new ArrayList<>();
+
+        void push(RationalFunction c) {
+            sums.add(c);
+            sizes.add(1);
+            int top = sums.size() - 1;
+            while (top > 0 && sizes.get(top) >= sizes.get(top - 1)) {
+                dev.contour.Cancellation.check();
+                sums.set(top - 1, sums.get(top - 1).add(sums.remove(top)));
+                sizes.set(top - 1, sizes.get(top - 1) + sizes.remove(top));
+                top--;
+            }
+        }
+
+        RationalFunction total() {
+            RationalFunction t = RationalFunction.ZERO;
+            for (int i = sums.size() - 1; i >= 0; i--) {
+                t = sums.get(i).add(t);
+            }
+            return t;
+        }
+    }
+
     /** Sums values: expressions merge coefficient maps in place; anything else adds pairwise. */
     private static final class Accumulator {
         private final Span span;
         private final EvaluationLimits limits;
         /** In the order first met, which Expression.of sorts cheaply (sums run through their monomials in long ascending runs). */
-        private final Map<dev.contour.algebra.Monomial, dev.contour.algebra.RationalFunction> terms = new LinkedHashMap<>();
+        private final Map<dev.contour.algebra.Monomial, PartialSums> terms = new LinkedHashMap<>();
         private final List<Term> symbolic = new ArrayList<>();
         private Value other;
 
@@ -1148,15 +1289,7 @@ public final class Interpreter {
 
         void add(Value v) {
             if (v instanceof ExprValue e) {
-                e.value().terms().forEach((m, c) -> {
-                    var sum = terms.get(m);
-                    var next = sum == null ? c : sum.add(c);
-                    if (next.isZero()) {
-                        terms.remove(m);
-                    } else {
-                        terms.put(m, next);
-                    }
-                });
+                e.value().terms().forEach((m, c) -> terms.computeIfAbsent(m, x -> new PartialSums()).push(c));
             } else if (v instanceof TermValue t) {
                 symbolic.add(t.value());
             } else {
@@ -1165,7 +1298,14 @@ public final class Interpreter {
         }
 
         Value result() {
-            Value rational = new ExprValue(Expression.of(terms));
+            Map<dev.contour.algebra.Monomial, RationalFunction> sums = new LinkedHashMap<>();
+            terms.forEach((m, partial) -> {
+                RationalFunction c = partial.total();
+                if (!c.isZero()) {
+                    sums.put(m, c);
+                }
+            });
+            Value rational = new ExprValue(Expression.of(sums));
             Value result = rational;
             if (!symbolic.isEmpty()) {
                 List<Term> all = new ArrayList<>(symbolic);

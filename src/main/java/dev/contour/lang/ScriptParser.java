@@ -30,7 +30,7 @@ public final class ScriptParser {
     /** Parses a whole script; syntax errors are located {@link ContourException}s. */
     public static List<Stmt> parseScript(String text, String file) {
         ScriptParser adapter = new ScriptParser(file);
-        ScriptContext tree = adapter.twoStage(text, ContourParser::script);
+        ScriptContext tree = adapter.twoStage(SourceFiles.withoutByteOrderMark(text), ContourParser::script);
         List<Stmt> out = new ArrayList<>();
         for (StatementContext s : tree.statement()) {
             adapter.statement(s, out);
@@ -263,18 +263,41 @@ public final class ScriptParser {
             Expr operand = arith(u.arith());
             return u.op.getText().equals("-") ? new Expr.Negate(operand, span) : operand;
         }
-        if (c instanceof ProductArithContext p) {
-            Expr.Operator op = p.op.getText().equals("*") ? Expr.Operator.MULTIPLY : Expr.Operator.DIVIDE;
-            return new Expr.Binary(op, arith(p.arith(0)), arith(p.arith(1)), span);
-        }
-        if (c instanceof SumArithContext s) {
-            Expr.Operator op = s.op.getText().equals("+") ? Expr.Operator.ADD : Expr.Operator.SUBTRACT;
-            return new Expr.Binary(op, arith(s.arith(0)), arith(s.arith(1)), span);
+        if (c instanceof ProductArithContext || c instanceof SumArithContext) {
+            return chain(c);
         }
         if (c instanceof RangeArithContext r) {
             return new Expr.Range(arith(r.arith(0)), arith(r.arith(1)), r.arith().size() > 2 ? arith(r.arith(2)) : null, span);
         }
         throw unhandled(c);
+    }
+
+    /**
+     * A run of sums (or of products) such as {@code s + s + ... + s}: the parse tree nests once per
+     * operator down its left side, so it is walked with a loop, not by recursion, and a flat sum of
+     * any length builds without deepening the stack. The tree built is the same left-nested one.
+     */
+    private Expr chain(ArithContext top) {
+        Class<?> kind = top.getClass();
+        List<ArithContext> spine = new ArrayList<>();
+        ArithContext c = top;
+        while (c.getClass() == kind) {
+            spine.add(c);
+            c = c.getRuleContext(ArithContext.class, 0);
+        }
+        Expr acc = arith(c);
+        for (int i = spine.size() - 1; i >= 0; i--) {
+            ArithContext node = spine.get(i);
+            Expr right = arith(node.getRuleContext(ArithContext.class, 1));
+            Expr.Operator op;
+            if (node instanceof ProductArithContext p) {
+                op = p.op.getText().equals("*") ? Expr.Operator.MULTIPLY : Expr.Operator.DIVIDE;
+            } else {
+                op = ((SumArithContext) node).op.getText().equals("+") ? Expr.Operator.ADD : Expr.Operator.SUBTRACT;
+            }
+            acc = new Expr.Binary(op, acc, right, span(node));
+        }
+        return acc;
     }
 
     private Expr.Argument argument(ArgumentContext a) {

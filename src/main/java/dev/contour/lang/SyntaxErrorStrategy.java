@@ -70,7 +70,9 @@ final class SyntaxErrorStrategy extends DefaultErrorStrategy {
         }
         String foundText = describeFound(found);
         Token opener = unclosedOpener(recognizer.getInputStream(), found);
-        if (opener != null && expected.contains(closerType(recognizer, opener))) {
+        // At the end of the input an unclosed bracket is the error whatever the parser was predicting
+        // (after '1/f(1' it may have settled on a shorter statement and expect the next one).
+        if (opener != null && (expected.contains(closerType(recognizer, opener)) || found.getType() == Token.EOF)) {
             String close = closerOf(opener.getText());
             return new ContourException("expected '" + close + "' to close '" + opener.getText() + "' opened at "
                     + opener.getLine() + ":" + (opener.getCharPositionInLine() + 1) + ", found " + foundText, where);
@@ -85,8 +87,18 @@ final class SyntaxErrorStrategy extends DefaultErrorStrategy {
             return new ContourException("expected a statement (vars, let, def, unknown, use, show, check, for, rule, derive), found "
                     + foundText, where);
         }
+        Token previous = found.getTokenIndex() > 0 ? recognizer.getInputStream().get(found.getTokenIndex() - 1) : null;
+        if (previous != null && previous.getText().equals("solve") && (found.getText().equals("for") || found.getType() == Token.EOF)) {
+            return new ContourException("'solve' needs the conditions to solve before 'for' (solve CONDITION, ... for"
+                    + " UNKNOWNS), and none are given", spanOf(previous));
+        }
         if (isKeyword(found, vocabulary) && expected.contains(ContourLexer.IDENT)) {
             return new ContourException("'" + found.getText() + "' is a keyword and cannot be used as a name", where);
+        }
+        if (found.getType() == Token.EOF && expected.contains(Token.EOF)) {
+            // "expected end of input, found end of input" would contradict itself: the parser failed
+            // earlier than it noticed, so the last statement is what is incomplete.
+            return new ContourException("the input ends inside an unfinished statement", where);
         }
         return new ContourException("expected " + describeExpected(expected, vocabulary) + ", found " + foundText, where);
     }

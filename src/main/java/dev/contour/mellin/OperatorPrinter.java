@@ -45,7 +45,7 @@ public final class OperatorPrinter {
         List<String> parts = new ArrayList<>();
         for (Map.Entry<Shift, Expression> e : op.terms().entrySet()) {
             StringBuilder sh = new StringBuilder();
-            e.getKey().amounts().forEach((v, a) -> sh.append("\\mathrm{E}_{").append(v).append("}^{")
+            e.getKey().amounts().forEach((v, a) -> sh.append("\\mathrm{E}_{").append(LatexPrinter.name(v)).append("}^{")
                     .append(LatexPrinter.rational(a)).append("}"));
             String c = LatexPrinter.expression(e.getValue(), factored);
             if (sh.length() == 0) {

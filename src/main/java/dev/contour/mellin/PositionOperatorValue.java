@@ -152,7 +152,8 @@ public record PositionOperatorValue(PositionOperator operator, String u, String 
             return "";
         }
         if (latex) {
-            return "\\left(" + x + "\\,\\partial_{" + x + "}\\right)" + (n == 1 ? "" : "^{" + n + "}");
+            String name = LatexPrinter.name(x);
+            return "\\left(" + name + "\\,\\partial_{" + name + "}\\right)" + (n == 1 ? "" : "^{" + n + "}");
         }
         String call = u.equals("U") && v.equals("V") ? "euler(" + x + ")" : "euler(" + x + ", cross: {" + u + ", " + v + "})";
         return "*" + call + (n == 1 ? "" : "^" + n);

@@ -16,6 +16,11 @@ import java.util.TreeMap;
 
 /** LaTeX rendering: {@code \frac}, braced powers, Greek letters by name, {@code \,} between factors. */
 public final class LatexPrinter {
+    /** A variable's name as LaTeX that compiles whatever its characters (subscripts braced, underscores escaped). */
+    public static String name(String variable) {
+        return Names.latex(variable);
+    }
+
     private LatexPrinter() { }
 
     /**
@@ -51,6 +56,7 @@ public final class LatexPrinter {
         }
         StringBuilder out = new StringBuilder();
         for (Polynomial.Term t : p.terms()) {
+            dev.contour.Cancellation.check();
             boolean negative = t.coefficient().signum() < 0;
             out.append(out.length() == 0 ? (negative ? "-" : "") : (negative ? " - " : " + "));
             out.append(unsignedTerm(t.coefficient().abs(), t.exponents()));
@@ -90,6 +96,7 @@ public final class LatexPrinter {
         }
         StringBuilder out = new StringBuilder();
         for (Map.Entry<Monomial, RationalFunction> t : e.terms().entrySet()) {
+            dev.contour.Cancellation.check();
             PlainPrinter.Signed s = term(t.getKey(), t.getValue(), factored);
             out.append(out.length() == 0 ? (s.negative() ? "-" : "") : (s.negative() ? " - " : " + "));
             out.append(s.text());
@@ -161,7 +168,7 @@ public final class LatexPrinter {
                 case Terms.POCH -> "\\left(" + args.get(0) + "\\right)_{" + args.get(1) + "}";
                 case Terms.FACTORIAL -> "\\left(" + args.get(0) + "\\right)!";
                 case Terms.BINOM -> "\\binom{" + args.get(0) + "}{" + args.get(1) + "}";
-                default -> "\\mathrm{" + a.function() + "}\\left(" + String.join(", ", args) + "\\right)";
+                default -> Names.upright(a.function()) + "\\left(" + String.join(", ", args) + "\\right)";
             };
         }
         if (t instanceof Term.Sum s) {

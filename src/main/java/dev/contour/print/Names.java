@@ -32,6 +32,19 @@ final class Names {
         if (digits > 0 && digits < name.length()) {
             return latex(name.substring(0, digits)) + "_{" + name.substring(digits) + "}";
         }
-        return name.length() == 1 ? name : "\\mathrm{" + name + "}";
+        if (name.length() == 1 && Character.isLetter(name.charAt(0)) || name.chars().allMatch(Character::isDigit)) {
+            return name;
+        }
+        return upright(name);
+    }
+
+    /**
+     * A name set upright, as a word: {@code \mathrm{...}} with the characters LaTeX reads as
+     * commands escaped (an underscore would open a subscript, {@code a_} would not compile).
+     */
+    static String upright(String name) {
+        return "\\mathrm{" + name.replace("\\", "\\backslash ").replace("_", "\\_").replace("^", "\\^{}")
+                .replace("{", "\\{").replace("}", "\\}").replace("$", "\\$").replace("#", "\\#")
+                .replace("%", "\\%").replace("&", "\\&") + "}";
     }
 }

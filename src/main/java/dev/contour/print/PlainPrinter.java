@@ -31,6 +31,7 @@ public final class PlainPrinter {
         }
         StringBuilder out = new StringBuilder();
         for (Polynomial.Term t : p.terms()) {
+            dev.contour.Cancellation.check();
             Rational c = t.coefficient();
             boolean negative = c.signum() < 0;
             if (out.length() == 0) {
@@ -77,6 +78,7 @@ public final class PlainPrinter {
         }
         StringBuilder out = new StringBuilder();
         for (Map.Entry<Monomial, RationalFunction> t : e.terms().entrySet()) {
+            dev.contour.Cancellation.check();
             Signed s = term(t.getKey(), t.getValue(), factored);
             if (out.length() == 0) {
                 out.append(s.negative ? "-" : "");

@@ -202,11 +202,7 @@ public final class Session {
         if (span.file().equals(fileName)) {
             return text;
         }
-        try {
-            return Files.readString(Path.of(span.file()), StandardCharsets.UTF_8);
-        } catch (IOException | RuntimeException e) {
-            return null;
-        }
+        return dev.contour.lang.SourceFiles.readForDisplay(Path.of(span.file()));
     }
 
     /**
@@ -326,7 +322,9 @@ public final class Session {
     private void runFile(Path file, Span where) {
         String text;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            text = dev.contour.lang.SourceFiles.read(file);
+        } catch (ContourException e) {
+            throw e; // not UTF-8: located at the bad byte
         } catch (NoSuchFileException e) {
             throw new ContourException("no such file: " + file, where);
         } catch (IOException | RuntimeException e) {

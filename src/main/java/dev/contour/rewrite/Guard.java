@@ -15,7 +15,7 @@ import java.util.function.BiPredicate;
  * A condition after {@code when}: one of a small fixed registry of named tests applied to pattern
  * expressions, so that rule files stay data and hold no code.
  *
- * @param variable the variable name of {@code free_of(@x, s)}; null for the other tests
+ * @param variable the variable name of {@code without_variable(@x, s)}; null for the other tests
  */
 public record Guard(Test test, Pattern argument, String variable, Span span) {
 
@@ -29,9 +29,17 @@ public record Guard(Test test, Pattern argument, String variable, Span span) {
         add("positive_integer", false, "an integer >= 1", (t, v) -> integer(t).filter(r -> r.signum() > 0).isPresent());
         add("negative_integer", false, "an integer <= -1", (t, v) -> integer(t).filter(r -> r.signum() < 0).isPresent());
         add("not_integer", false, "anything but an integer (a symbol or a fraction)", (t, v) -> integer(t).isEmpty());
-        add("numeric", false, "a rational number", (t, v) -> t instanceof Term.Leaf l && l.value().isConstant());
+        add("rational_number", false, "a rational number", (t, v) -> t instanceof Term.Leaf l && l.value().isConstant());
         add("nonzero", false, "not zero", (t, v) -> !(t instanceof Term.Leaf l && l.value().isZero()));
-        add("free_of", true, "free of the named variable, as in free_of(@x, s)", (t, v) -> freeOf(t, v));
+        add("without_variable", true, "free of the named variable, as in without_variable(@x, s)", (t, v) -> freeOf(t, v));
+    }
+
+    /** Guard names given up for names of our own that say what they test: old name to new name. */
+    private static final Map<String, String> RETIRED = Map.of("numeric", "rational_number", "free_of", "without_variable");
+
+    /** The name that replaced a retired guard name, if {@code name} is one. */
+    public static Optional<String> replacementOf(String name) {
+        return Optional.ofNullable(RETIRED.get(name));
     }
 
     private static void add(String name, boolean takesVariable, String summary, BiPredicate<Term, String> p) {

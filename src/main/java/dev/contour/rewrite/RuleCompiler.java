@@ -63,6 +63,11 @@ final class RuleCompiler {
         if (!(g instanceof Expr.Call call) || !(call.callee() instanceof Expr.Name name)) {
             throw error("a guard is one of " + list + " applied to pattern expressions, as in integer(@n)", g.span());
         }
+        String renamed = Guard.replacementOf(name.name()).orElse(null);
+        if (renamed != null) {
+            throw error("the guard '" + name.name() + "' is now called '" + renamed + "': write " + renamed
+                    + "(...) instead", name.span());
+        }
         Guard.Test test = Guard.lookup(name.name()).orElseThrow(() ->
                 error("unknown guard '" + name.name() + "' (the guards are " + list + ")", name.span()));
         int want = test.takesVariable() ? 2 : 1;
@@ -80,7 +85,7 @@ final class RuleCompiler {
         if (test.takesVariable()) {
             Expr v = call.arguments().get(1).value();
             if (!(v instanceof Expr.Name n)) {
-                throw error("the second argument of " + test.name() + " is a variable name, as in free_of(@x, s)", v.span());
+                throw error("the second argument of " + test.name() + " is a variable name, as in without_variable(@x, s)", v.span());
             }
             variable = n.name();
         }

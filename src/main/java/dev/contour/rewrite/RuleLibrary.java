@@ -22,7 +22,7 @@ public final class RuleLibrary {
     public static RuleSet load(Path file) {
         String text;
         try {
-            text = Files.readString(file, StandardCharsets.UTF_8);
+            text = dev.contour.lang.SourceFiles.read(file);
         } catch (IOException e) {
             throw new ContourException("cannot read rule file '" + file + "': " + e.getMessage());
         }

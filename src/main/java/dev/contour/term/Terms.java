@@ -101,13 +101,42 @@ public final class Terms {
             }
             return result;
         }
+        // 1/((x - 1)(x - 2)...(x - m)) one linear factor at a time: the denominator stays factored,
+        // where dividing by the expanded product would have to factor a degree-m polynomial again
         for (int k = 1; k <= -n; k++) {
             if ((k & 255) == 0) {
                 Cancellation.check();
             }
-            result = result.multiply(x.subtract(Expression.constant(k)));
+            result = result.divide(x.subtract(Expression.constant(k)));
         }
-        return Expression.ONE.divide(result);
+        return result;
+    }
+
+    /**
+     * poch(x, n)^exponent. A negative exponent divides by the n linear factors one at a time, so the
+     * result's denominator is the product of those factors as they are (cheap), not a degree-n
+     * polynomial to be factored again (for n = 400 that took minutes).
+     */
+    public static Expression pochhammerPower(Expression x, int n, int exponent) {
+        if (exponent >= 0) {
+            return pochhammer(x, n).pow(exponent);
+        }
+        if (n < 0 || x.isConstant()) {
+            return pochhammer(x, n).pow(exponent);
+        }
+        checkLength(n);
+        if (Math.abs((long) n) > MAX_SYMBOLIC_LENGTH) {
+            throw new ContourException("a symbolic Pochhammer symbol of length " + n + " is past the limit of "
+                    + MAX_SYMBOLIC_LENGTH);
+        }
+        Expression inverse = Expression.ONE;
+        for (int k = 0; k < n; k++) {
+            if ((k & 255) == 0) {
+                Cancellation.check();
+            }
+            inverse = inverse.divide(x.add(Expression.constant(k)));
+        }
+        return inverse.pow(-exponent);
     }
 
     /** n! for 0 <= n <= {@link #MAX_EXACT_LENGTH}. */
@@ -116,14 +145,35 @@ public final class Terms {
             throw new ContourException("factorial of a negative integer (" + n + ") is undefined");
         }
         checkLength(n);
-        BigInteger f = BigInteger.ONE;
-        for (int k = 2; k <= n; k++) {
-            if ((k & 255) == 0) {
-                Cancellation.check();
-            }
-            f = f.multiply(BigInteger.valueOf(k));
+        BigInteger[] table = factorials;
+        if (n < table.length) {
+            return table[n];
         }
-        return f;
+        synchronized (Terms.class) {
+            table = factorials;
+            if (n >= table.length) {
+                // grow to at least n + 1, doubling, each entry from the one before: a sum over many
+                // index tuples asks for the same factorials again and again
+                BigInteger[] grown = java.util.Arrays.copyOf(table, Math.max(n + 1, Math.min(2 * table.length, MAX_EXACT_LENGTH + 1)));
+                for (int k = table.length; k < grown.length; k++) {
+                    if ((k & 255) == 0) {
+                        Cancellation.check();
+                    }
+                    grown[k] = grown[k - 1].multiply(BigInteger.valueOf(k));
+                }
+                factorials = grown;
+                table = grown;
+            }
+            return table[n];
+        }
+    }
+
+    /** 0!, 1!, ...: computed once, shared (the array is replaced, never changed, once published). */
+    private static volatile BigInteger[] factorials = {BigInteger.ONE, BigInteger.ONE};
+
+    /** binom(n, k) for integers 0 <= k <= n <= {@link #MAX_EXACT_LENGTH}, from the shared factorials. */
+    public static BigInteger binomial(int n, int k) {
+        return factorial(n).divide(factorial(k).multiply(factorial(n - k)));
     }
 
     /** binom(x, k) = x(x-1)...(x-k+1)/k! for an integer k (zero when k < 0). */
@@ -206,6 +256,16 @@ public final class Terms {
             return acc;
         }
         if (t instanceof Term.Power w) {
+            if (reduce && w.exponent() < 0 && w.base() instanceof Term.Apply a && a.function().equals(POCH)
+                    && a.arguments().size() == 2) {
+                // 1/poch(x, n) with a whole n: built from its linear factors, never factored back
+                Term x = normalize(a.arguments().get(0));
+                Term n = normalize(a.arguments().get(1));
+                Integer length = n instanceof Term.Leaf nl ? integerValue(nl.value()) : null;
+                if (length != null && x instanceof Term.Leaf xl) {
+                    return single(RATIONAL, pochhammerPower(xl.value(), length, w.exponent()));
+                }
+            }
             Map<Key, Expression> base = normalForm(w.base(), reduce);
             return power(reduce ? reduceGammas(base) : base, w.exponent());
         }
@@ -371,7 +431,7 @@ public final class Terms {
                 }
                 int shift = shiftOf.get(a.getKey());
                 if (shift != 0) {
-                    coefficient = coefficient.multiply(pochhammer(argumentOf.get(base), shift).pow(a.getValue()));
+                    coefficient = coefficient.multiply(pochhammerPower(argumentOf.get(base), shift, a.getValue()));
                 }
                 atomsOut.merge(base, a.getValue(), Terms::addExponents);
             }

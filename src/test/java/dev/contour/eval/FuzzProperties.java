@@ -74,6 +74,77 @@ class FuzzProperties {
         runExpectingOnlyContourErrors(fileAndText[1], fileAndText[0]);
     }
 
+    /** The scripts users see first: the examples and the language reference's snippets. */
+    private static List<String> documentedScripts() throws IOException {
+        List<String> out = new java.util.ArrayList<>();
+        try (Stream<Path> files = Files.list(Path.of("examples"))) {
+            for (Path p : files.filter(p -> p.toString().endsWith(".ctr")).sorted().toList()) {
+                out.add(read(p));
+            }
+        }
+        String doc = read(Path.of("docs", "language.md"));
+        int at = 0;
+        while ((at = doc.indexOf("```contour\n", at)) >= 0) {
+            int end = doc.indexOf("```", at + 11);
+            out.add(doc.substring(at + 11, end));
+            at = end + 3;
+        }
+        return out;
+    }
+
+    @Provide
+    Arbitrary<String> mutatedDocumentedScripts() throws IOException {
+        List<String> scripts = documentedScripts();
+        Arbitrary<List<int[]>> edits = Combinators.combine(
+                        Arbitraries.integers().between(0, 3), Arbitraries.integers().between(0, 100_000),
+                        Arbitraries.integers().between(0, 12), Arbitraries.integers().between(0, TOKENS.size() - 1))
+                .as((kind, at, length, token) -> new int[] {kind, at, length, token})
+                .list().ofMinSize(1).ofMaxSize(3);
+        return Combinators.combine(Arbitraries.of(scripts), edits).as((text, es) -> {
+            for (int[] e : es) {
+                text = mutate(text, e);
+            }
+            return text;
+        });
+    }
+
+    /**
+     * Through the command line with a statement budget of two seconds: a mutated documented script
+     * ends (the budget stops any statement; the generous wait below only catches a hang), prints no
+     * Java exception, and either succeeds, fails a check, or reports a located error
+     * ({@code file:line:column: message}).
+     */
+    @Property(tries = 120)
+    void mutatedDocumentedScriptsEndWithinBudgetWithAResultOrALocatedError(@ForAll("mutatedDocumentedScripts") String text)
+            throws Exception {
+        Path dir = Files.createTempDirectory("fuzz");
+        Path file = dir.resolve("mutated.ctr");
+        Files.writeString(file, text);
+        java.io.ByteArrayOutputStream out = new java.io.ByteArrayOutputStream();
+        java.io.ByteArrayOutputStream err = new java.io.ByteArrayOutputStream();
+        java.util.concurrent.ExecutorService runner = java.util.concurrent.Executors.newSingleThreadExecutor();
+        try {
+            java.util.concurrent.Future<Integer> code = runner.submit(() -> dev.contour.cli.Main.run(
+                    new String[] {"run", "--time-budget", "2", file.toString()}, java.io.InputStream.nullInputStream(),
+                    new PrintStream(out, true, StandardCharsets.UTF_8), new PrintStream(err, true, StandardCharsets.UTF_8)));
+            int exit = code.get(10, java.util.concurrent.TimeUnit.MINUTES);
+            String errors = err.toString(StandardCharsets.UTF_8);
+            if (errors.contains("Exception") || errors.contains("\tat ") || errors.contains("internal error")) {
+                fail("a Java exception for input:\n" + text + "\n" + errors);
+            }
+            if (exit == 2 && !errors.startsWith(file + ":") && !errors.startsWith("contour: ")) {
+                fail("an error without a location for input:\n" + text + "\n" + errors);
+            }
+            if (exit != 0 && exit != 1 && exit != 2) {
+                fail("exit status " + exit);
+            }
+        } finally {
+            runner.shutdownNow();
+            Files.deleteIfExists(file);
+            Files.deleteIfExists(dir);
+        }
+    }
+
     /** Deletes, duplicates or replaces a stretch, or inserts a token. */
     private static String mutate(String text, int[] e) {
         if (text.isEmpty()) {
