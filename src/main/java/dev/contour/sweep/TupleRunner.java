@@ -68,7 +68,10 @@ public final class TupleRunner {
         PrintStream out = new PrintStream(buffer, true, StandardCharsets.UTF_8);
         EvaluationLimits d = EvaluationLimits.DEFAULT;
         InterpreterOptions options = new InterpreterOptions(out, OutputFormat.PLAIN, false, rules, false,
-                new EvaluationLimits(d.maxExponent(), d.maxSetSize(), d.maxLoopIterations(), d.maxCallDepth(), timeLimit));
+                // A tuple's memory bound is its worker's heap (--memory): running out ends that tuple and the
+                // pool restarts the worker, so the statement memory budget (a share of the same heap) is off.
+                new EvaluationLimits(d.maxExponent(), d.maxSetSize(), d.maxLoopIterations(), d.maxCallDepth(), timeLimit)
+                        .withStatementBudget(d.statementTime(), 0));
         List<SweepRecord.Shown> shown = new ArrayList<>();
         List<MemoryPoolMXBean> pools = heapPools();
         pools.forEach(MemoryPoolMXBean::resetPeakUsage);
