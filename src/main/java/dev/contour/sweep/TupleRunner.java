@@ -101,6 +101,10 @@ public final class TupleRunner {
                     message = message.substring(0, cut) + message.substring(end); // the launcher's option does not reach workers
                 }
                 message = message.replaceFirst("\n", "; " + memoryNote + "\n");
+            } else if (e.getMessage() != null && e.getMessage().startsWith("the script ran past its time limit")) {
+                // the interpreter's limit is the tuple's: name the sweep option that sets it
+                message = message.replaceFirst("\n", "; each tuple may take --tuple-time " + Math.max(1, timeLimit.toSeconds())
+                        + " s; raise it with --tuple-time SECONDS\n");
             }
             error = message;
         } catch (OutOfMemoryError e) {
