@@ -23,27 +23,9 @@ final class Json {
         }
     }
 
-    /** The JSON form of a string, quotes included. */
+    /** The JSON form of a string, quotes included (the printers' one escaping). */
     static String quote(String s) {
-        StringBuilder out = new StringBuilder(s.length() + 2).append('"');
-        for (int i = 0; i < s.length(); i++) {
-            char c = s.charAt(i);
-            switch (c) {
-                case '"' -> out.append("\\\"");
-                case '\\' -> out.append("\\\\");
-                case '\n' -> out.append("\\n");
-                case '\r' -> out.append("\\r");
-                case '\t' -> out.append("\\t");
-                default -> {
-                    if (c < 0x20) {
-                        out.append(String.format("\\u%04x", (int) c));
-                    } else {
-                        out.append(c);
-                    }
-                }
-            }
-        }
-        return out.append('"').toString();
+        return dev.contour.print.JsonPrinter.string(s);
     }
 
     /** Writes a value built of maps, lists, strings, numbers, booleans and null on one line. */
