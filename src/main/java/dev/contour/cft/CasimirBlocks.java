@@ -25,15 +25,7 @@ public final class CasimirBlocks {
         if (d < 1) {
             throw new ContourException("the dimension must be a positive integer, got " + d);
         }
-        if (spin < 0) {
-            throw new ContourException("the spin must be a non-negative integer, got " + spin);
-        }
-        Rational twist = delta.subtract(Rational.of(spin));
-        Rational half = twist.divide(Rational.of(2));
-        if (!half.isInteger() || half.signum() < 0) {
-            throw new ContourException("the twist Delta - l = " + twist + " must be an even integer >= 0 (integer powers of z, zbar)");
-        }
-        int h = half.intValueExact();
+        int h = ConformalBlocks.halfTwist(delta, spin);
         DoubleSeries.Builder b = new DoubleSeries.Builder(order);
         if (2 * h + spin > order) {
             return b.build();

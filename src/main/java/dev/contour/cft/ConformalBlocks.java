@@ -21,8 +21,11 @@ import java.util.List;
 public final class ConformalBlocks {
     private ConformalBlocks() { }
 
-    /** The block G_(Delta, l) in dimension d to total degree {@code order} in z, zbar. */
-    public static DoubleSeries block(int d, Rational delta, int spin, int order) {
+    /**
+     * (Delta - l)/2 for a block whose expansion has integer powers of z, zbar; refuses a negative
+     * spin or a twist that is not an even integer >= 0. Shared with {@link CasimirBlocks}.
+     */
+    static int halfTwist(Rational delta, int spin) {
         if (spin < 0) {
             throw new ContourException("the spin must be a non-negative integer, got " + spin);
         }
@@ -31,7 +34,12 @@ public final class ConformalBlocks {
         if (!half.isInteger() || half.signum() < 0) {
             throw new ContourException("the twist Delta - l = " + twist + " must be an even integer >= 0 (integer powers of z, zbar)");
         }
-        int h = half.intValueExact();
+        return half.intValueExact();
+    }
+
+    /** The block G_(Delta, l) in dimension d to total degree {@code order} in z, zbar. */
+    public static DoubleSeries block(int d, Rational delta, int spin, int order) {
+        int h = halfTwist(delta, spin);
         DoubleSeries.Builder b = new DoubleSeries.Builder(order);
         int inner = order - 2 * h;
         if (inner < 0) {
