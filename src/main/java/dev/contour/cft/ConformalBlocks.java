@@ -40,6 +40,7 @@ public final class ConformalBlocks {
     /** The block G_(Delta, l) in dimension d to total degree {@code order} in z, zbar. */
     public static DoubleSeries block(int d, Rational delta, int spin, int order) {
         int h = halfTwist(delta, spin);
+        Rational twist = Rational.of(2 * h);
         DoubleSeries.Builder b = new DoubleSeries.Builder(order);
         int inner = order - 2 * h;
         if (inner < 0) {
