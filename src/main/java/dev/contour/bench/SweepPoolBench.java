@@ -5,61 +5,88 @@ import dev.contour.sweep.SweepCommand;
 import dev.contour.sweep.TupleRunner;
 import dev.contour.eval.Interpreter;
 import dev.contour.eval.InterpreterOptions;
+import dev.contour.eval.RunResult;
 
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
+import java.io.InputStream;
 import java.io.OutputStream;
 import java.io.PrintStream;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Comparator;
+import java.util.List;
 import java.util.stream.Stream;
 
 /**
- * The {@code sweep-pool} benchmark: the equal-weight AdS5xS5 solve ({@code SolveBench}'s script with
- * p left to the sweep) for p = 2..P through {@code contour sweep} with one and two workers, against
- * the same runs one after another in this process. P is 40, or {@code CONTOUR_SWEEP_BENCH_TOP}.
+ * The {@code sweep-pool} benchmark: the "sweep" workload of {@link SweepBench} (every AdS5xS5
+ * correlator with 2 <= p4 <= p3 <= p2 <= p1 <= N, even weight sum and L >= 2, solved from the general
+ * ansatz of width 1 and checked) as one script per tuple ({@code bench/ads5s5-sweep-tuple.ctr})
+ * through {@code contour sweep} with one and two workers, against the same tuples run one after
+ * another in this process. N is 10 (216 tuples), or {@code CONTOUR_SWEEP_BENCH_TOP}.
  */
 public final class SweepPoolBench implements BenchRegistry.Provider {
     @Override
     public void register(BenchRegistry r) {
         r.register(BenchRegistry.Workload.report("sweep-pool",
-                "the equal-weight AdS5xS5 solve for p = 2..40 (CONTOUR_SWEEP_BENCH_TOP) through 'contour sweep' with"
-                        + " --jobs 1 and 2, and in-process; per-tuple overhead",
+                "every AdS5xS5 correlator <p1 p2 p3 p4>, p_i <= 10 (CONTOUR_SWEEP_BENCH_TOP), solved and checked through"
+                        + " 'contour sweep' with --jobs 1 and 2, and in-process; per-tuple overhead",
                 SweepPoolBench::run));
     }
 
-    /** The solve script with p unbound: the sweep binds it. */
+    /** The per-tuple script: p1..p4 and h = (p1 + p2 + p3 + p4)/2 unbound; the sweep binds them. */
     static String script() {
-        String s = SolveBench.script(0);
-        String line = "let p = 0\n";
-        if (!s.contains(line)) {
-            throw new IllegalStateException("the solve benchmark script no longer binds p as expected");
+        try (InputStream in = SweepPoolBench.class.getResourceAsStream("/bench/ads5s5-sweep-tuple.ctr")) {
+            if (in == null) {
+                throw new IllegalStateException("the tuple script bench/ads5s5-sweep-tuple.ctr is missing from the class path");
+            }
+            return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
         }
-        return s.replace(line, "");
+    }
+
+    /** The weight tuples of the "sweep" workload up to n, in the order the sweep's index set lists them. */
+    static List<int[]> tuples(int n) {
+        List<int[]> out = new ArrayList<>();
+        for (int p1 = 2; p1 <= n; p1++) {
+            for (int p2 = 2; p2 <= p1; p2++) {
+                for (int p3 = 2; p3 <= p2; p3++) {
+                    for (int p4 = 2; p4 <= p3; p4++) {
+                        if ((p1 + p2 + p3 + p4) % 2 == 0 && p2 + p3 + p4 >= p1 + 4) {
+                            out.add(new int[] {p1, p2, p3, p4});
+                        }
+                    }
+                }
+            }
+        }
+        return out;
     }
 
     static void run(PrintStream out) {
-        int top = Integer.parseInt(System.getenv().getOrDefault("CONTOUR_SWEEP_BENCH_TOP", "40"));
-        int n = top - 1;
+        int top = Integer.parseInt(System.getenv().getOrDefault("CONTOUR_SWEEP_BENCH_TOP", "10"));
+        List<int[]> tuples = tuples(top);
+        int n = tuples.size();
         try {
             Path dir = Files.createTempDirectory("contour-sweep-bench");
             try {
-                Path script = dir.resolve("equal-weight.ctr");
-                Files.writeString(script, script());
+                Path script = dir.resolve("correlator.ctr");
                 String text = script();
+                Files.writeString(script, text);
                 PrintStream sink = new PrintStream(OutputStream.nullOutputStream());
-                runInProcess(text, script, 2, sink); // warm-up
+                runInProcess(text, script, new int[] {2, 2, 2, 2}, sink); // warm-up
+                String load = load();
                 long t0 = System.nanoTime();
-                for (int p = 2; p <= top; p++) {
-                    runInProcess(text, script, p, sink);
+                for (int[] w : tuples) {
+                    runInProcess(text, script, w, sink);
                 }
                 double inProcess = (System.nanoTime() - t0) / 1e9;
                 double one = sweep(script, dir.resolve("one"), top, 1);
                 double two = sweep(script, dir.resolve("two"), top, 2);
-                out.printf("tuples p = 2..%d (%d), load before: %s%n", top, n, load());
+                out.printf("correlators p_i <= %d (%d tuples), load before: %s%n", top, n, load);
                 out.printf("%-34s %8.2f s%n", "in-process, one after another", inProcess);
                 out.printf("%-34s %8.2f s%n", "contour sweep --jobs 1 (wall)", one);
                 out.printf("%-34s %8.2f s   (%.2fx faster than --jobs 1)%n", "contour sweep --jobs 2 (wall)", two, one / two);
@@ -74,17 +101,24 @@ public final class SweepPoolBench implements BenchRegistry.Provider {
         }
     }
 
-    private static void runInProcess(String text, Path script, int p, PrintStream sink) {
+    private static void runInProcess(String text, Path script, int[] w, PrintStream sink) {
         Interpreter i = new Interpreter(InterpreterOptions.to(sink));
-        i.run("let p = " + p + "\n", TupleRunner.TUPLE_FILE);
-        i.run(text, script.toString());
+        i.run("let p1 = " + w[0] + "\nlet p2 = " + w[1] + "\nlet p3 = " + w[2] + "\nlet p4 = " + w[3]
+                + "\nlet h = " + (w[0] + w[1] + w[2] + w[3]) / 2 + "\n", TupleRunner.TUPLE_FILE);
+        RunResult r = i.run(text, script.toString());
+        if (!r.ok()) {
+            throw new IllegalStateException("the in-process run of <" + w[0] + " " + w[1] + " " + w[2] + " " + w[3]
+                    + "> failed");
+        }
     }
 
     private static double sweep(Path script, Path results, int top, int jobs) {
         ByteArrayOutputStream o = new ByteArrayOutputStream();
         ByteArrayOutputStream e = new ByteArrayOutputStream();
         long t0 = System.nanoTime();
-        int code = new SweepCommand().run(java.util.List.of(script.toString(), "--over", "p", "in", "2.." + top,
+        int code = new SweepCommand().run(java.util.List.of(script.toString(), "--over",
+                        "p1 in 2.." + top + ", p2 in 2.." + top + ", p3 in 2.." + top + ", p4 in 2.." + top + ", h in 4.." + 2 * top,
+                        "--where", "p2 <= p1, p3 <= p2, p4 <= p3, p2 + p3 + p4 >= p1 + 4, p1 + p2 + p3 + p4 = 2*h",
                         "--results", results.toString(), "--jobs", Integer.toString(jobs)), System.in,
                 new PrintStream(o, true, StandardCharsets.UTF_8), new PrintStream(e, true, StandardCharsets.UTF_8));
         double wall = (System.nanoTime() - t0) / 1e9;
