@@ -44,6 +44,8 @@ public final class Interpreter {
     private final Map<String, Stmt.Unknown> unknownDeclaredBy = new HashMap<>();
     private SessionLog log = new SessionLog();
     private final Set<Path> used = new HashSet<>();
+    /** The SHA-256 of each library file's text as {@code use} read it, in the order read. */
+    private final Map<Path, String> libraryDigests = new LinkedHashMap<>();
     /** The files being run or loaded right now, outermost first: a {@code use} of one of them is a cycle. */
     private final List<Path> loading = new ArrayList<>();
     private Deque<Map<String, Value>> frames = new ArrayDeque<>();
@@ -627,6 +629,7 @@ public final class Interpreter {
         } catch (IOException e) {
             throw new ContourException("cannot read '" + file + "': " + e.getMessage(), u.span());
         }
+        libraryDigests.put(key, sha256(text));
         Path savedDirectory = directory;
         Deque<Map<String, Value>> savedFrames = frames;
         fileDepth++;
@@ -643,6 +646,30 @@ public final class Interpreter {
             frames = savedFrames;
             loading.remove(loading.size() - 1);
         }
+    }
+
+    /**
+     * Every library file this session loaded with {@code use}, each with the SHA-256 (hex) of the
+     * text it read: a sweep records them, so a record made with a library that changed since is
+     * never mistaken for a current one.
+     */
+    public Map<Path, String> libraryDigests() {
+        return java.util.Collections.unmodifiableMap(new LinkedHashMap<>(libraryDigests));
+    }
+
+    /** SHA-256 of a text's UTF-8 bytes, in lower-case hex. */
+    public static String sha256(String text) {
+        try {
+            return java.util.HexFormat.of().formatHex(java.security.MessageDigest.getInstance("SHA-256")
+                    .digest(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
+        } catch (java.security.NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is part of every Java runtime", e);
+        }
+    }
+
+    /** The digest {@link #libraryDigests} would record for this file if a session loaded it now. */
+    public static String libraryDigest(Path file) throws IOException {
+        return sha256(dev.contour.lang.SourceFiles.read(file));
     }
 
     private Path resolve(String name, Span span) {

@@ -53,7 +53,8 @@ public final class SweepCommand implements Subcommand {
               --timings             add wall time and peak heap columns
               --output FILE         write the table to FILE (whole or not at all)
 
-            exit status: 0 every tuple ok, 1 a tuple failed or is missing, 2 bad input or usage
+            exit status: 0 every tuple ok, 1 a tuple failed, is missing or is stale (made with a library
+            that has changed since), 2 bad input or usage
             """;
 
     @Override
@@ -313,14 +314,26 @@ public final class SweepCommand implements Subcommand {
             throw new Refusal(damagedReport(contents.damaged()));
         }
         List<Integer> todo = new ArrayList<>();
+        LibraryState libraries = new LibraryState();
+        java.util.Set<String> changed = new java.util.TreeSet<>();
+        int stale = 0;
         for (int i = 0; i < tuples.size(); i++) {
             if (o.chunks > 0 && i % o.chunks != o.chunk - 1) {
                 continue;
             }
             SweepRecord r = contents.records().get(ResultsFolder.key(mine.tuple(i)));
-            if (r == null || (o.retryFailed && r.status() != SweepRecord.Status.OK)) {
+            List<String> old = r == null ? List.of() : libraries.changed(r);
+            if (r == null || (o.retryFailed && r.status() != SweepRecord.Status.OK) || !old.isEmpty()) {
                 todo.add(i);
+                if (r != null && !old.isEmpty()) {
+                    stale++;
+                    changed.addAll(old);
+                }
             }
+        }
+        if (stale > 0) {
+            err.println("sweep: " + stale + " record" + (stale == 1 ? " was" : "s were") + " made with a library that has changed since ("
+                    + String.join(", ", changed) + "); running " + (stale == 1 ? "its tuple" : "those tuples") + " again");
         }
         int jobs = Math.max(1, Math.min(o.jobs, todo.size()));
         String memory = o.memory != null ? o.memory : defaultMemory(jobs);
@@ -502,10 +515,20 @@ public final class SweepCommand implements Subcommand {
         List<SweepRecord> rows = new ArrayList<>();
         List<Map<String, Long>> missing = new ArrayList<>();
         List<SweepRecord> failed = new ArrayList<>();
+        List<String> stale = new ArrayList<>();
+        LibraryState libraries = new LibraryState();
+        int belonging = 0;
         for (int i = 0; i < m.tuples().size(); i++) {
             SweepRecord r = c.records().get(ResultsFolder.key(m.tuple(i)));
+            List<String> old = r == null ? List.of() : libraries.changed(r);
+            if (r != null) {
+                belonging++;
+            }
             if (r == null) {
                 missing.add(m.tuple(i));
+            } else if (!old.isEmpty()) {
+                // left out of the table: its values came from a library text that no longer exists
+                stale.add(SweepRecord.describe(r.tuple()) + ": made with " + String.join(", ", old) + ", changed since");
             } else {
                 rows.add(r);
                 if (r.status() != SweepRecord.Status.OK) {
@@ -513,8 +536,8 @@ public final class SweepCommand implements Subcommand {
                 }
             }
         }
-        if (rows.size() != c.records().size()) {
-            throw new Refusal("contour sweep: " + (c.records().size() - rows.size()) + " record file(s) in " + folder.records()
+        if (belonging != c.records().size()) {
+            throw new Refusal("contour sweep: " + (c.records().size() - belonging) + " record file(s) in " + folder.records()
                     + " belong to no tuple of the index set " + m.indexSet());
         }
         for (String col : o.columns) {
@@ -537,10 +560,37 @@ public final class SweepCommand implements Subcommand {
             notes.println("missing (" + missing.size() + " of " + m.tuples().size() + "): "
                     + String.join("; ", missing.stream().map(SweepRecord::describe).toList()));
         }
+        if (!stale.isEmpty()) {
+            notes.println("stale, left out of the table (" + stale.size() + "; run the sweep again to redo them): "
+                    + String.join("; ", stale));
+        }
         for (SweepRecord r : failed) {
             notes.println("failed: " + SweepRecord.describe(r.tuple()) + ": " + r.status().word
                     + (r.error() == null ? "" : "\n    " + r.error().strip().replace("\n", "\n    ")));
         }
-        return missing.isEmpty() && failed.isEmpty() ? OK : FAILED;
+        return missing.isEmpty() && failed.isEmpty() && stale.isEmpty() ? OK : FAILED;
+    }
+
+    /** The current digest of each library file records name, read once per file. */
+    private static final class LibraryState {
+        private final Map<String, String> now = new java.util.HashMap<>();
+
+        /** The library files of this record whose text is no longer what the record was made with. */
+        List<String> changed(SweepRecord r) {
+            List<String> out = new ArrayList<>();
+            r.libraries().forEach((file, digest) -> {
+                String current = now.computeIfAbsent(file, f -> {
+                    try {
+                        return dev.contour.eval.Interpreter.libraryDigest(Path.of(f));
+                    } catch (IOException | RuntimeException e) {
+                        return "(unreadable)";
+                    }
+                });
+                if (!current.equals(digest)) {
+                    out.add(file);
+                }
+            });
+            return out;
+        }
     }
 }

@@ -16,11 +16,14 @@ import java.util.Map;
  * @param output  everything the script printed, as {@code contour run} prints it
  * @param millis  wall time of the tuple's run in milliseconds
  * @param peakHeapBytes the largest heap in use during the run (all heap pools' peaks summed), or -1
+ * @param libraries every library file the run loaded with {@code use} (absolute path) with the SHA-256
+ *                of the text it read; a record whose library has changed since is stale
  */
 record SweepRecord(Map<String, Long> tuple, Status status, String error, List<Shown> shown, String output,
-                   int checksPassed, int checksFailed, long millis, long peakHeapBytes) {
+                   int checksPassed, int checksFailed, long millis, long peakHeapBytes, Map<String, String> libraries) {
     SweepRecord {
         tuple = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(tuple));
+        libraries = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(libraries));
         shown = List.copyOf(shown);
         output = output == null ? "" : output;
     }
@@ -97,6 +100,7 @@ record SweepRecord(Map<String, Long> tuple, Status status, String error, List<Sh
         m.put("millis", millis);
         m.put("peak_heap_bytes", peakHeapBytes);
         m.put("output", output);
+        m.put("libraries", new LinkedHashMap<String, Object>(libraries));
         return Json.write(m);
     }
 
@@ -135,9 +139,21 @@ record SweepRecord(Map<String, Long> tuple, Status status, String error, List<Sh
             }
             shown.add(new Shown(l, val, tex));
         }
+        Map<String, String> libraries = new LinkedHashMap<>();
+        if (m.containsKey("libraries")) {
+            if (!(m.get("libraries") instanceof Map<?, ?> lib)) {
+                throw new Json.Malformed("the record's \"libraries\" is not an object of file digests", 1);
+            }
+            for (Map.Entry<?, ?> e : lib.entrySet()) {
+                if (!(e.getValue() instanceof String digest)) {
+                    throw new Json.Malformed("the digest of library '" + e.getKey() + "' is not a string", 1);
+                }
+                libraries.put((String) e.getKey(), digest);
+            }
+        }
         return new SweepRecord(tuple, status, error, shown, m.get("output") instanceof String o ? o : "",
                 (int) integer(m, "checks_passed"), (int) integer(m, "checks_failed"),
-                integer(m, "millis"), integer(m, "peak_heap_bytes"));
+                integer(m, "millis"), integer(m, "peak_heap_bytes"), libraries);
     }
 
     private static long integer(Map<?, ?> m, String key) throws Json.Malformed {

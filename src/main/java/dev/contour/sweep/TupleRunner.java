@@ -80,8 +80,9 @@ public final class TupleRunner {
         String error = null;
         int passed = 0;
         int failed = 0;
+        Interpreter interpreter = null;
         try {
-            Interpreter interpreter = new Interpreter(options);
+            interpreter = new Interpreter(options);
             StringBuilder bindings = new StringBuilder();
             tuple.forEach((k, v) -> bindings.append("let ").append(k).append(" = ").append(v).append('\n'));
             interpreter.run(bindings.toString(), TUPLE_FILE);
@@ -121,8 +122,12 @@ public final class TupleRunner {
             peak += p.getPeakUsage() == null ? 0 : p.getPeakUsage().getUsed();
         }
         out.flush();
+        Map<String, String> libraries = new java.util.LinkedHashMap<>();
+        if (interpreter != null) {
+            interpreter.libraryDigests().forEach((file, digest) -> libraries.put(file.toString(), digest));
+        }
         return new SweepRecord(tuple, status, error, shown, buffer.toString(StandardCharsets.UTF_8),
-                passed, failed, millis, pools.isEmpty() ? -1 : peak);
+                passed, failed, millis, pools.isEmpty() ? -1 : peak, libraries);
     }
 
     private static List<MemoryPoolMXBean> heapPools() {

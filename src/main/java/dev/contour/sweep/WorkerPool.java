@@ -155,7 +155,7 @@ final class WorkerPool {
                         + "; its log is in " + folder.logs();
             }
             retire();
-            SweepRecord r = new SweepRecord(tuple, SweepRecord.Status.ERROR, why + "\n", List.of(), "", 0, 0, 0, -1);
+            SweepRecord r = new SweepRecord(tuple, SweepRecord.Status.ERROR, why + "\n", List.of(), "", 0, 0, 0, -1, Map.of());
             folder.writeRecord(r);
             return r.status();
         }

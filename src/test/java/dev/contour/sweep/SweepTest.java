@@ -244,6 +244,33 @@ class SweepTest {
     }
 
     @Test
+    void aRecordMadeWithALibraryThatChangedIsStaleNotCurrent() throws Exception {
+        // An invented library: a scale the script multiplies by. Editing it must not leave records
+        // made with the old text in the table as if they were current.
+        Path lib = write("scale.ctr", "def scale(n) = 2 * n\n");
+        Path script = write("scaled.ctr", "use \"scale.ctr\"\nlet v = scale(n)\nshow v\n");
+        Path folder = dir.resolve("scaled");
+        Cli first = cli("sweep", script.toString(), "--over", "n", "in", "1..3", "--results", folder.toString(), "--jobs", "1");
+        assertEquals(0, first.code(), first.err());
+        assertTrue(first.out().contains("6"), first.out());
+        for (SweepRecord r : new ResultsFolder(folder).read().records().values()) {
+            assertEquals(Map.of(lib.toAbsolutePath().normalize().toString(),
+                    dev.contour.eval.Interpreter.sha256("def scale(n) = 2 * n\n")), r.libraries());
+        }
+        Files.writeString(lib, "def scale(n) = 3 * n\n");
+        Cli merged = cli("sweep", "--merge", folder.toString());
+        assertEquals(1, merged.code(), merged.out());
+        assertTrue(merged.out().contains("stale, left out of the table (3; run the sweep again to redo them)"), merged.out());
+        assertTrue(merged.out().contains("scale.ctr, changed since"), merged.out());
+        assertFalse(merged.out().contains("| 6"), merged.out()); // no value made with the old library is shown
+        Cli again = cli("sweep", script.toString(), "--over", "n", "in", "1..3", "--results", folder.toString(), "--jobs", "1");
+        assertEquals(0, again.code(), again.err());
+        assertTrue(again.err().contains("3 records were made with a library that has changed since"), again.err());
+        assertTrue(again.out().contains("9"), again.out()); // 3 * 3 with the new library
+        assertFalse(again.out().contains("stale"), again.out());
+    }
+
+    @Test
     void chunksMergeIntoTheTableOfTheWholeSweep() throws Exception {
         Path script = write("recursion.ctr", RECURSION);
         Path whole = dir.resolve("whole");
