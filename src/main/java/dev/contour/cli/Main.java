@@ -200,33 +200,12 @@ public final class Main {
 
         /** Applies one budget option; returns what is wrong with its value, or null. */
         String budget(String option, String value) {
-            long n;
             try {
-                n = Long.parseLong(value);
-            } catch (NumberFormatException e) {
-                return option + " needs a whole number, not '" + value + "'";
+                limits = limits.withOption(option, value);
+                return null;
+            } catch (IllegalArgumentException e) {
+                return e.getMessage();
             }
-            if (n < 0) {
-                return option + " cannot be negative (0 means no limit)";
-            }
-            EvaluationLimits l = limits;
-            limits = switch (option) {
-                case "--time-budget" -> l.withStatementBudget(Duration.ofSeconds(Math.min(n, 10_000_000L)), l.statementMemoryMiB());
-                case "--memory-budget" -> l.withStatementBudget(l.statementTime(), n);
-                default -> {
-                    if (n < 1) {
-                        yield null;
-                    }
-                    yield new EvaluationLimits(l.maxExponent(), l.maxSetSize(), l.maxLoopIterations(), l.maxCallDepth(),
-                            l.timeLimit(), l.statementTime(), l.statementMemoryMiB(),
-                            (long) Math.ceil(Math.min(n, 1_000_000_000L) / Math.log10(2)));
-                }
-            };
-            if (limits == null) {
-                limits = l;
-                return "--max-digits needs at least 1";
-            }
-            return null;
         }
     }
 

@@ -49,6 +49,35 @@ public record EvaluationLimits(int maxExponent, long maxSetSize, long maxLoopIte
                 maxNumberBits);
     }
 
+    /**
+     * These limits with one budget option of the command line applied ({@code --time-budget SECONDS},
+     * {@code --memory-budget MIB}, {@code --max-digits DIGITS}); the message of the exception says
+     * what is wrong with the value.
+     */
+    public EvaluationLimits withOption(String option, String value) {
+        long n;
+        try {
+            n = Long.parseLong(value);
+        } catch (NumberFormatException e) {
+            throw new IllegalArgumentException(option + " needs a whole number, not '" + value + "'");
+        }
+        if (n < 0) {
+            throw new IllegalArgumentException(option + " cannot be negative (0 means no limit)");
+        }
+        return switch (option) {
+            case "--time-budget" -> withStatementBudget(Duration.ofSeconds(Math.min(n, 10_000_000L)), statementMemoryMiB);
+            case "--memory-budget" -> withStatementBudget(statementTime, n);
+            case "--max-digits" -> {
+                if (n < 1) {
+                    throw new IllegalArgumentException("--max-digits needs at least 1");
+                }
+                yield new EvaluationLimits(maxExponent, maxSetSize, maxLoopIterations, maxCallDepth, timeLimit, statementTime,
+                        statementMemoryMiB, (long) Math.ceil(Math.min(n, 1_000_000_000L) / Math.log10(2)));
+            }
+            default -> throw new IllegalArgumentException("unknown budget option " + option);
+        };
+    }
+
     /** Whether a wall-clock budget applies (zero means none). */
     public boolean timed() {
         return !timeLimit.isZero();

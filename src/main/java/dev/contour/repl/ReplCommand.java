@@ -24,6 +24,8 @@ public final class ReplCommand implements Subcommand {
                                also --history=FILE
               --no-history     keep no history
               --latex, --json, --rules DIR, --debug   as for 'contour run'
+              --time-budget SECONDS, --memory-budget MIB, --max-digits DIGITS
+                               budgets of each statement, as for 'contour run'
             """.formatted(ReplSettings.HISTORY_VARIABLE);
 
     @Override
@@ -43,8 +45,22 @@ public final class ReplCommand implements Subcommand {
         boolean debug = false;
         Path history = ReplSettings.defaultHistoryFile();
         List<String> files = new ArrayList<>();
+        dev.contour.eval.EvaluationLimits limits = dev.contour.eval.EvaluationLimits.DEFAULT;
         for (int i = 0; i < args.size(); i++) {
             String a = args.get(i);
+            if (a.equals("--time-budget") || a.equals("--memory-budget") || a.equals("--max-digits")) {
+                if (i + 1 >= args.size()) {
+                    err.println("contour repl: " + a + " needs a whole number");
+                    return Main.BAD_INPUT;
+                }
+                try {
+                    limits = limits.withOption(a, args.get(++i));
+                } catch (IllegalArgumentException e) {
+                    err.println("contour repl: " + e.getMessage());
+                    return Main.BAD_INPUT;
+                }
+                continue;
+            }
             if ((a.equals("--rules") || a.equals("--history")) && i + 1 < args.size()) {
                 a = a + "=" + args.get(++i); // the spaced form, as 'contour run' takes it
             }
@@ -72,7 +88,7 @@ public final class ReplCommand implements Subcommand {
                 files.add(a);
             }
         }
-        ReplSettings settings = new ReplSettings(history, format, rules, debug);
+        ReplSettings settings = new ReplSettings(history, format, rules, debug, limits);
         try {
             if (in == System.in && System.console() != null) {
                 try (Terminal terminal = TerminalBuilder.builder().system(true).build()) {

@@ -1,5 +1,6 @@
 package dev.contour.repl;
 
+import dev.contour.eval.EvaluationLimits;
 import dev.contour.eval.OutputFormat;
 import java.nio.file.Path;
 import java.util.Map;
@@ -11,13 +12,20 @@ import java.util.Map;
  * @param format      how shown values print
  * @param rules       where {@code use} looks for libraries, or null for the default
  * @param debug       whether errors keep their Java detail
+ * @param limits      the evaluation limits and statement budgets ({@code --time-budget} and the others)
  */
-public record ReplSettings(Path historyFile, OutputFormat format, Path rules, boolean debug) {
+public record ReplSettings(Path historyFile, OutputFormat format, Path rules, boolean debug, EvaluationLimits limits) {
     /** The environment variable that moves the history file (an empty value turns history off). */
     public static final String HISTORY_VARIABLE = "CONTOUR_HISTORY";
 
     public ReplSettings {
         format = format == null ? OutputFormat.PLAIN : format;
+        limits = limits == null ? EvaluationLimits.DEFAULT : limits;
+    }
+
+    /** Default limits and budgets. */
+    public ReplSettings(Path historyFile, OutputFormat format, Path rules, boolean debug) {
+        this(historyFile, format, rules, debug, EvaluationLimits.DEFAULT);
     }
 
     /** Plain output, default rules, no history, no debug detail. */
@@ -26,7 +34,7 @@ public record ReplSettings(Path historyFile, OutputFormat format, Path rules, bo
     }
 
     public ReplSettings withHistory(Path file) {
-        return new ReplSettings(file, format, rules, debug);
+        return new ReplSettings(file, format, rules, debug, limits);
     }
 
     /** {@code $CONTOUR_HISTORY} when set (empty: none), else {@code .contour_history} in {@code $HOME} (or the account's home). */

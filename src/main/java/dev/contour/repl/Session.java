@@ -221,7 +221,7 @@ public final class Session {
 
     private Interpreter newInterpreter(OutputStream to) {
         PrintStream stream = new PrintStream(to, true, StandardCharsets.UTF_8);
-        return new Interpreter(new InterpreterOptions(stream, settings.format(), false, settings.rules(), settings.debug()));
+        return new Interpreter(new InterpreterOptions(stream, settings.format(), false, settings.rules(), settings.debug(), settings.limits()));
     }
 
     private static boolean isBareExpression(String input) {

@@ -45,6 +45,21 @@ class StreamReplTest {
     }
 
     @Test
+    void statementBudgetsApplyInTheReplAndTheSessionGoesOn() {
+        // the same budget options as 'contour run': a runaway statement stops, names the option, and
+        // what came before and after it still runs
+        Run r = repl("vars s, t\nshow 1\nlet x = (s + t + 1)^500\nshow 2\n", "--time-budget", "1");
+        assertEquals("1\n2\n", r.out());
+        assertTrue(r.err().startsWith("<repl>:3:1: this statement ran past its time budget of 1 seconds; raise it with"
+                + " --time-budget SECONDS"), r.err());
+        Run digits = repl("show 10^40\n", "--max-digits", "20");
+        assertTrue(digits.err().contains("past the limit of 20 digits; raise it with --max-digits DIGITS"), digits.err());
+        Run bad = repl("show 1\n", "--time-budget", "soon");
+        assertEquals(2, bad.code());
+        assertTrue(bad.err().contains("--time-budget needs a whole number, not 'soon'"), bad.err());
+    }
+
+    @Test
     void aBareExpressionIsShownLikeShow() {
         Run r = repl("let word = \"ansatz\"\n{word, word}\nshow {word, word}\n");
         assertEquals("{word, word} = {\"ansatz\", \"ansatz\"}\n".repeat(2), r.out());
