@@ -9,6 +9,9 @@ final class Names {
             "tau", "upsilon", "phi", "varphi", "chi", "psi", "omega", "Gamma", "Delta", "Theta", "Lambda", "Xi",
             "Pi", "Sigma", "Upsilon", "Phi", "Psi", "Omega");
 
+    /** Accents a one-letter or Greek name may end with: {@code utilde} typesets as {@code \\tilde{u}}. */
+    private static final String[] ACCENTS = {"tilde", "hat", "bar"};
+
     private Names() { }
 
     static String latex(String name) {
@@ -24,6 +27,12 @@ final class Names {
         }
         if (GREEK.contains(name)) {
             return "\\" + name;
+        }
+        for (String accent : ACCENTS) {
+            String base = name.endsWith(accent) ? name.substring(0, name.length() - accent.length()) : "";
+            if (base.length() == 1 && Character.isLetter(base.charAt(0)) || GREEK.contains(base)) {
+                return "\\" + accent + "{" + latex(base) + "}"; // utilde is ũ, sigmabar is σ̄
+            }
         }
         int digits = name.length();
         while (digits > 0 && Character.isDigit(name.charAt(digits - 1))) {

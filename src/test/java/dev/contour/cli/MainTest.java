@@ -116,6 +116,20 @@ class MainTest {
     }
 
     @Test
+    void accentedNamesTypesetWithTheirAccent() throws IOException {
+        // utilde is the shifted Mellin variable u - 4 of the AdS5xS5 background (physics-reference §4);
+        // zbar the conjugate cross-ratio: both are written with an accent in papers (common practice)
+        String file = script("acc.ctr", "vars utilde, zbar, sigmahat, ubar2, that2x\nshow utilde + zbar*sigmahat + ubar2 + that2x\n");
+        CliRunner latex = CliRunner.run("run", "--latex", file);
+        String tex = latex.out().lines().toList().get(1);
+        assertTrue(tex.contains("\\tilde{u}"), tex);
+        assertTrue(tex.contains("\\bar{z}"), tex);
+        assertTrue(tex.contains("\\hat{\\sigma}"), tex);
+        assertTrue(tex.contains("\\bar{u}_{2}"), tex);
+        assertTrue(tex.contains("\\mathrm{that2x}"), tex); // not a letter and an accent: upright, as before
+    }
+
+    @Test
     void aJsonRunStaysJsonWhenAStatementAsksForAnotherForm() throws IOException {
         String file = script("j.ctr", "vars s\nshow {1, 2} as plain\nshow s^2 as latex\nshow \"heading\" as latex\n");
         List<String> lines = CliRunner.run("--json", "run", file).out().lines().toList();
