@@ -30,9 +30,10 @@ import java.util.function.Supplier;
 public final class CftBuiltins implements BuiltinProvider {
     @Override
     public void register(BuiltinRegistry r) {
-        r.register(new Builtin("small_u", 2, 2, Set.of("contour", "through", "order"), false,
-                "small_u(M, m, contour: {4/3, 4/3}, through: 6, order: 10): the exact top-log coefficients of U^a (log U)^k,"
-                        + " closing the s-contour on the right, as series in w = 1 - V", CftBuiltins::smallU));
+        r.register(new Builtin("small_u", 2, 2, Set.of("contour", "through", "order", "sides"), false,
+                "small_u(M, m, contour: {4/3, 4/3}, through: 6, order: 10, sides: \"channels\"): the exact top-log coefficients of"
+                        + " U^a (log U)^k, closing the s-contour on the right, as series in w = 1 - V; with sides: \"channels\" each pole"
+                        + " of M takes the side of the measure's Gamma function parallel to it", CftBuiltins::smallU));
         r.register(new Builtin("zseries", 1, 1, Set.of("order", "log", "times_u"), false,
                 "zseries(X, order: 20, log: 1, times_u: 2): X (an expression in U, V, or the (log U)^k part of a small-U expansion)"
                         + " times U^times_u as an exact series in z, zbar to that total degree", CftBuiltins::zseries));
@@ -70,7 +71,19 @@ public final class CftBuiltins implements BuiltinProvider {
         Arguments.Argument th = required(a, "through", span);
         Rational through = Values.rational(th.value(), th.span(), "small_u: through");
         int order = nonNegative(a, "order", span, 1000);
-        return new UExpansionValue(at(span, () -> SmallUExpansion.expand(mv.measure(), ev.value().asRationalFunction(), s0, t0, through, order)));
+        boolean byChannel = false;
+        Optional<Arguments.Argument> sides = a.named("sides");
+        if (sides.isPresent()) {
+            String v = sides.get().value() instanceof StringValue sv ? sv.value() : "";
+            if (!v.equals("channels") && !v.equals("contour")) {
+                throw new ContourException("small_u: sides is \"channels\" (each pole of the amplitude on the side of its channel's"
+                        + " Gamma function) or \"contour\" (the side of the straight contour, the default)", sides.get().span());
+            }
+            byChannel = v.equals("channels");
+        }
+        boolean channels = byChannel;
+        return new UExpansionValue(at(span, () -> SmallUExpansion.expand(mv.measure(), ev.value().asRationalFunction(), s0, t0, through, order,
+                channels)));
     }
 
     private static Value zseries(Arguments a, Span span) {
