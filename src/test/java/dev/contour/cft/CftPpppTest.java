@@ -81,6 +81,19 @@ class CftPpppTest {
     }
 
     @Test
+    void peelingAndTheRecursiveTriangularSolveAgree() {
+        // Two ways of solving the same triangular system for the singlet component of H.
+        String out = CftScripts.run("""
+                use "ads5s5_cftdata.ctr"
+                check singlet_long_part(free_pppp(2), 2) == 1 + V^-2
+                check singlet_long_part(free_pppp(3), 3) == long_component(free_pppp(3), 3, 0, 0)
+                check singlet_long_part(free_pppp(4), 4) == long_component(free_pppp(4), 4, 0, 0)
+                """);
+        assertFalse(out.contains("FAILED"), out);
+        assertEquals(3, out.lines().filter(l -> l.startsWith("check")).count(), out);
+    }
+
+    @Test
     void theGeneralRouteReproducesThe2222TablesExactly() {
         String out = CftScripts.run("""
                 use "ads5s5_cftdata.ctr"
