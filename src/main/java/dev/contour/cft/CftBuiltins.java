@@ -46,6 +46,9 @@ public final class CftBuiltins implements BuiltinProvider {
         r.register(Builtin.of("block_coefficient", 3,
                 "block_coefficient(D, twist, spin): one entry of a block table", CftBuiltins::blockCoefficient));
         r.register(Builtin.of("residual", 1, "residual(D): what a decomposition left over, as a z, zbar series", CftBuiltins::residual));
+        r.register(Builtin.of("rational_eigenvalues", 1,
+                "rational_eigenvalues({{a, b}, {c, d}}): the eigenvalues of a square matrix of numbers, exactly, when all are rational",
+                CftBuiltins::rationalEigenvalues));
         r.register(new Builtin("data_table", 1, 1, Set.of("title", "lowest_twist", "spins", "rows"), false,
                 "data_table(D, title: \"gamma\", lowest_twist: 8, rows: 0..10, spins: 0..20 step 2): the table with rows n = (twist - lowest_twist)/2",
                 CftBuiltins::dataTable));
@@ -161,6 +164,27 @@ public final class CftBuiltins implements BuiltinProvider {
         List<Integer> rows = a.named("rows").isPresent() ? integers(a.named("rows").get(), "data_table: rows") : null;
         String ft = title;
         return new BlockTableValue(at(span, () -> t.relabel(ft, lowest, spins, rows)));
+    }
+
+    private static Value rationalEigenvalues(Arguments a, Span span) {
+        if (!(a.get(0) instanceof ListValue rows)) {
+            throw new ContourException("rational_eigenvalues: the argument is a matrix written as a list of rows, {{a, b}, {c, d}}, not a "
+                    + a.get(0).kind(), a.spanOf(0));
+        }
+        List<List<Rational>> m = new ArrayList<>();
+        for (Value row : rows.items()) {
+            if (!(row instanceof ListValue r)) {
+                throw new ContourException("rational_eigenvalues: each row must be a list of numbers, not a " + row.kind(), a.spanOf(0));
+            }
+            List<Rational> xs = new ArrayList<>();
+            for (Value x : r.items()) {
+                xs.add(Values.rational(x, a.spanOf(0), "rational_eigenvalues: an entry"));
+            }
+            m.add(xs);
+        }
+        List<Value> out = new ArrayList<>();
+        at(a.spanOf(0), () -> RationalEigenvalues.of(m)).forEach(x -> out.add(new ExprValue(Expression.constant(x))));
+        return new ListValue(out);
     }
 
     // ---------------------------------------------------------------------------------- helpers
