@@ -246,6 +246,17 @@ class CftPpppTest {
         assertTrue(bad.startsWith("2: ") && bad.contains("sides is \"channels\""), bad);
     }
 
+    @Test
+    void aPoleWithNoChannelIsRefusedWhenPolesGoByChannel() {
+        // The box measure has Gamma arguments -s, -t and 1 + s + t: nothing runs parallel to s - t (its pole lies left in s and is not picked up, but the t-integral needs its side).
+        String out = error("""
+                vars s, t
+                let m = mellin_measure(gamma: {{-s, 2}, {-t, 2}, {1 + s + t, 2}}, kernel: {s, t})
+                show small_u(1/(s - t + 5), m, contour: {-1/3, -1/3}, through: 1, order: 2, sides: "channels")
+                """);
+        assertTrue(out.startsWith("3: ") && out.contains("no Gamma function of the measure runs parallel"), out);
+    }
+
     /** The line and message of the error a script stops with. */
     private static String error(String script) {
         try {
