@@ -1,6 +1,7 @@
 package dev.contour.cft;
 
 import dev.contour.algebra.Rational;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 import static org.junit.jupiter.api.Assertions.*;
@@ -87,10 +88,21 @@ class CftPpppTest {
                 use "ads5s5_cftdata.ctr"
                 check singlet_long_part(free_pppp(2), 2) == 1 + V^-2
                 check singlet_long_part(free_pppp(3), 3) == long_component(free_pppp(3), 3, 0, 0)
+                """);
+        assertFalse(out.contains("FAILED"), out);
+        assertEquals(2, out.lines().filter(l -> l.startsWith("check")).count(), out);
+    }
+
+    @Test
+    @Tag("slow")
+    void peelingAndTheRecursiveTriangularSolveAgreeAtP4() {
+        // The recursion makes 32 calls at p = 4 (half a minute on a loaded machine).
+        String out = CftScripts.run("""
+                use "ads5s5_cftdata.ctr"
                 check singlet_long_part(free_pppp(4), 4) == long_component(free_pppp(4), 4, 0, 0)
                 """);
         assertFalse(out.contains("FAILED"), out);
-        assertEquals(3, out.lines().filter(l -> l.startsWith("check")).count(), out);
+        assertEquals(1, out.lines().filter(l -> l.startsWith("check")).count(), out);
     }
 
     @Test
