@@ -5,6 +5,7 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.IntRange;
 import net.jqwik.api.constraints.Size;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 
 import java.util.ArrayList;
@@ -89,6 +90,41 @@ class UnmixingTest {
             assertEquals(published(3, l), shownList(eig.get(2 * i)), "twist 6, l=" + l);
             assertEquals(published(4, l), shownList(eig.get(2 * i + 1)), "twist 8, l=" + l);
         }
+    }
+
+    @Test
+    @Tag("slow")
+    void twistTenSpectrumFromTenCorrelators() {
+        // Twist 10, four operators [O_i O_i], i = 2..5: every <ppqq> with 2 <= p <= q <= 5, no constant fitted.
+        String out = CftScripts.run("""
+                use "ads5s5_cftdata.ctr"
+                let A2 = free_long_pppp(2, 3, 2)
+                let A3 = free_long_pppp(3, 2, 2)
+                let A4 = free_long_pppp(4, 1, 2)
+                let A5 = free_long_pppp(5, 0, 2)
+                def L(p, q) = log_part_ppqq(sugra_ppqq(p, q), p, q, 5 - max(p, q), 2)
+                let L22 = L(2, 2)
+                let L23 = L(2, 3)
+                let L24 = L(2, 4)
+                let L25 = L(2, 5)
+                let L33 = L(3, 3)
+                let L34 = L(3, 4)
+                let L35 = L(3, 5)
+                let L44 = L(4, 4)
+                let L45 = L(4, 5)
+                let L55 = L(5, 5)
+                def k(L, A, l) = 2*block_coefficient(L, 14, l)/block_coefficient(A, 14, l)
+                for l in 0..2 step 2 {
+                  show rational_eigenvalues({{k(L22, A2, l), k(L23, A2, l), k(L24, A2, l), k(L25, A2, l)},
+                                             {k(L23, A3, l), k(L33, A3, l), k(L34, A3, l), k(L35, A3, l)},
+                                             {k(L24, A4, l), k(L34, A4, l), k(L44, A4, l), k(L45, A4, l)},
+                                             {k(L25, A5, l), k(L35, A5, l), k(L45, A5, l), k(L55, A5, l)}})
+                }
+                """);
+        List<String> eig = out.lines().filter(l -> l.contains("rational_eigenvalues(")).toList();
+        assertEquals(2, eig.size(), out);
+        assertEquals(published(5, 0), shownList(eig.get(0)));
+        assertEquals(published(5, 2), shownList(eig.get(1)));
     }
 
     @Test
