@@ -41,6 +41,17 @@ final class BarnesIntegral {
      */
     static List<Rational> expand(List<Rational> lefts, List<Rational> rights, UnivariatePolynomial numerator,
                                  List<PoleFactor> poles, Rational x0, Rational lambda, Rational mu, int order) {
+        return expand(lefts, rights, numerator, poles, x0, null, lambda, mu, order);
+    }
+
+    /**
+     * As above, but with {@code side} non-null every pole factor is placed on that side (true: right)
+     * whatever its position, and the contour is any curve separating the two families of poles (no
+     * straight line needs to exist); x0 is then not used. Barnes' lemma holds for such a curve, and a
+     * pinch of the two families shows up as a Gamma value at a non-positive integer, refused.
+     */
+    static List<Rational> expand(List<Rational> lefts, List<Rational> rights, UnivariatePolynomial numerator,
+                                 List<PoleFactor> poles, Rational x0, Boolean side, Rational lambda, Rational mu, int order) {
         List<Rational> a = new ArrayList<>(lefts);
         List<Rational> c = new ArrayList<>(rights);
         UnivariatePolynomial p = numerator;
@@ -48,7 +59,7 @@ final class BarnesIntegral {
         for (PoleFactor f : poles) {
             for (int k = 0; k < f.multiplicity(); k++) {
                 Rational r = f.root();
-                int cmp = r.compareTo(x0);
+                int cmp = side != null ? (side ? 1 : -1) : r.compareTo(x0);
                 if (cmp == 0) {
                     throw new ContourException("the amplitude has a pole at x = " + r + " on the contour Re x = " + x0);
                 }
@@ -77,7 +88,8 @@ final class BarnesIntegral {
                 }
                 if (!done) {
                     throw new ContourException("the pole of the amplitude at x = " + r + " (" + (cmp > 0 ? "right" : "left")
-                            + " of the contour) does not continue the poles of a Gamma function on that side; the integral is not"
+                            + (side != null ? " by its channel)" : " of the contour)")
+                            + " does not continue the poles of a Gamma function on that side; the integral is not"
                             + " of Barnes form and has no exact expansion here");
                 }
             }
@@ -86,12 +98,12 @@ final class BarnesIntegral {
             throw new ContourException("the remaining integral has " + a.size() + " Gamma(a + x) and " + c.size()
                     + " Gamma(c - x) factors; exact values need exactly two of each (Barnes' first lemma)");
         }
-        for (Rational ai : a) {
+        for (Rational ai : side != null ? List.<Rational>of() : a) {
             if (ai.add(x0).signum() <= 0) {
                 throw new ContourException("the contour Re x = " + x0 + " does not keep the poles of Gamma(" + ai + " + x) on its left");
             }
         }
-        for (Rational ci : c) {
+        for (Rational ci : side != null ? List.<Rational>of() : c) {
             if (ci.subtract(x0).signum() <= 0) {
                 throw new ContourException("the contour Re x = " + x0 + " does not keep the poles of Gamma(" + ci + " - x) on its right");
             }

@@ -30,9 +30,10 @@ import java.util.function.Supplier;
 public final class CftBuiltins implements BuiltinProvider {
     @Override
     public void register(BuiltinRegistry r) {
-        r.register(new Builtin("small_u", 2, 2, Set.of("contour", "through", "order"), false,
-                "small_u(M, m, contour: {4/3, 4/3}, through: 6, order: 10): the exact top-log coefficients of U^a (log U)^k,"
-                        + " closing the s-contour on the right, as series in w = 1 - V", CftBuiltins::smallU));
+        r.register(new Builtin("small_u", 2, 2, Set.of("contour", "through", "order", "sides"), false,
+                "small_u(M, m, contour: {4/3, 4/3}, through: 6, order: 10, sides: \"channels\"): the exact top-log coefficients of"
+                        + " U^a (log U)^k, closing the s-contour on the right, as series in w = 1 - V; with sides: \"channels\" each pole"
+                        + " of M takes the side of the measure's Gamma function parallel to it", CftBuiltins::smallU));
         r.register(new Builtin("zseries", 1, 1, Set.of("order", "log", "times_u"), false,
                 "zseries(X, order: 20, log: 1, times_u: 2): X (an expression in U, V, or the (log U)^k part of a small-U expansion)"
                         + " times U^times_u as an exact series in z, zbar to that total degree", CftBuiltins::zseries));
@@ -45,6 +46,9 @@ public final class CftBuiltins implements BuiltinProvider {
         r.register(Builtin.of("block_coefficient", 3,
                 "block_coefficient(D, twist, spin): one entry of a block table", CftBuiltins::blockCoefficient));
         r.register(Builtin.of("residual", 1, "residual(D): what a decomposition left over, as a z, zbar series", CftBuiltins::residual));
+        r.register(Builtin.of("rational_eigenvalues", 1,
+                "rational_eigenvalues({{a, b}, {c, d}}): the eigenvalues of a square matrix of numbers, exactly, when all are rational",
+                CftBuiltins::rationalEigenvalues));
         r.register(new Builtin("data_table", 1, 1, Set.of("title", "lowest_twist", "spins", "rows"), false,
                 "data_table(D, title: \"gamma\", lowest_twist: 8, rows: 0..10, spins: 0..20 step 2): the table with rows n = (twist - lowest_twist)/2",
                 CftBuiltins::dataTable));
@@ -70,7 +74,19 @@ public final class CftBuiltins implements BuiltinProvider {
         Arguments.Argument th = required(a, "through", span);
         Rational through = Values.rational(th.value(), th.span(), "small_u: through");
         int order = nonNegative(a, "order", span, 1000);
-        return new UExpansionValue(at(span, () -> SmallUExpansion.expand(mv.measure(), ev.value().asRationalFunction(), s0, t0, through, order)));
+        boolean byChannel = false;
+        Optional<Arguments.Argument> sides = a.named("sides");
+        if (sides.isPresent()) {
+            String v = sides.get().value() instanceof StringValue sv ? sv.value() : "";
+            if (!v.equals("channels") && !v.equals("contour")) {
+                throw new ContourException("small_u: sides is \"channels\" (each pole of the amplitude on the side of its channel's"
+                        + " Gamma function) or \"contour\" (the side of the straight contour, the default)", sides.get().span());
+            }
+            byChannel = v.equals("channels");
+        }
+        boolean channels = byChannel;
+        return new UExpansionValue(at(span, () -> SmallUExpansion.expand(mv.measure(), ev.value().asRationalFunction(), s0, t0, through, order,
+                channels)));
     }
 
     private static Value zseries(Arguments a, Span span) {
@@ -148,6 +164,27 @@ public final class CftBuiltins implements BuiltinProvider {
         List<Integer> rows = a.named("rows").isPresent() ? integers(a.named("rows").get(), "data_table: rows") : null;
         String ft = title;
         return new BlockTableValue(at(span, () -> t.relabel(ft, lowest, spins, rows)));
+    }
+
+    private static Value rationalEigenvalues(Arguments a, Span span) {
+        if (!(a.get(0) instanceof ListValue rows)) {
+            throw new ContourException("rational_eigenvalues: the argument is a matrix written as a list of rows, {{a, b}, {c, d}}, not a "
+                    + a.get(0).kind(), a.spanOf(0));
+        }
+        List<List<Rational>> m = new ArrayList<>();
+        for (Value row : rows.items()) {
+            if (!(row instanceof ListValue r)) {
+                throw new ContourException("rational_eigenvalues: each row must be a list of numbers, not a " + row.kind(), a.spanOf(0));
+            }
+            List<Rational> xs = new ArrayList<>();
+            for (Value x : r.items()) {
+                xs.add(Values.rational(x, a.spanOf(0), "rational_eigenvalues: an entry"));
+            }
+            m.add(xs);
+        }
+        List<Value> out = new ArrayList<>();
+        at(a.spanOf(0), () -> RationalEigenvalues.of(m)).forEach(x -> out.add(new ExprValue(Expression.constant(x))));
+        return new ListValue(out);
     }
 
     // ---------------------------------------------------------------------------------- helpers

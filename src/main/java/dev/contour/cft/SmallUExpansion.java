@@ -46,9 +46,13 @@ public final class SmallUExpansion {
     }
 
     /** The terms by increasing power of U, then decreasing power of log U. */
-    public record Result(List<Term> terms, Rational contourS, Rational contourT, Rational through, int order) {
+    public record Result(List<Term> terms, Rational contourS, Rational contourT, Rational through, int order, boolean byChannel) {
         public Result {
             terms = List.copyOf(terms);
+        }
+
+        public Result(List<Term> terms, Rational contourS, Rational contourT, Rational through, int order) {
+            this(terms, contourS, contourT, through, order, false);
         }
     }
 
@@ -56,6 +60,21 @@ public final class SmallUExpansion {
     public static final int MAX_POLES = 10_000;
 
     public static Result expand(MellinMeasure m, RationalFunction amplitude, Rational cs, Rational ct, Rational through, int order) {
+        return expand(m, amplitude, cs, ct, through, order, false);
+    }
+
+    /**
+     * As above; with {@code byChannel} every pole of the amplitude whose linear form runs parallel to a
+     * Gamma argument of the measure takes that Gamma function's side, in s and in t, instead of the side
+     * of the straight contour it happens to fall on. This is the Mellin prescription when no straight
+     * contour separates the channels (reduced amplitudes of four equal weights p >= 3: s, t, utilde < 2
+     * cannot hold with s + t + utilde = 4p - 4): an s-channel pole is picked up on closing, a pole
+     * of the crossed channel (its form moves with s the other way) is not, and in the remaining t-integral
+     * the amplitude is split into partial fractions whose poles keep their own channel's side. The contour
+     * still decides which poles of the s-dependent Gamma functions are picked up.
+     */
+    public static Result expand(MellinMeasure m, RationalFunction amplitude, Rational cs, Rational ct, Rational through, int order,
+                                boolean byChannel) {
         String s = m.s();
         String t = m.t();
         if (order < 0) {
@@ -91,6 +110,9 @@ public final class SmallUExpansion {
                 continue;
             }
             if (!gamma.isZero()) {
+                if (byChannel && beta.signum() > 0) {
+                    continue;
+                }
                 // Poles at s = (-k - alpha - gamma t)/beta: their real parts on Re t = ct.
                 Rational first = alpha.negate().subtract(gamma.multiply(ct)).divide(beta);
                 if (g.exponent() > 0 && (beta.signum() < 0 || first.compareTo(cs) >= 0)) {
@@ -136,6 +158,21 @@ public final class SmallUExpansion {
                 if (a.isZero()) {
                     continue;
                 }
+                Integer side = byChannel ? channelSide(m, f.base(), s) : null;
+                if (side != null && side < 0) {
+                    continue;
+                }
+                if (side != null && side > 0) {
+                    if (!b.isZero()) {
+                        throw new ContourException("the amplitude's pole " + f.base() + " = 0 moves with " + t + " and lies right in "
+                                + s + " by its channel: closing there gives powers of U that are not fixed numbers");
+                    }
+                    Rational fixed = c.negate().divide(a);
+                    if (m.uScale().multiply(fixed).add(m.uOffset().constantValue()).compareTo(through) <= 0) {
+                        poles.put(fixed, Boolean.TRUE);
+                    }
+                    continue;
+                }
                 Rational at = c.negate().subtract(b.multiply(ct)).divide(a);
                 if (at.compareTo(cs) == 0) {
                     throw new ContourException("the contour Re " + s + " = " + cs + " runs through the amplitude's pole " + f.base() + " = 0");
@@ -155,13 +192,13 @@ public final class SmallUExpansion {
         }
         List<Term> terms = new ArrayList<>();
         for (Rational s0 : poles.keySet()) {
-            terms.addAll(atPole(m, amplitude, s0, ct, order));
+            terms.addAll(atPole(m, amplitude, s0, ct, order, byChannel));
         }
-        return new Result(terms, cs, ct, through, order);
+        return new Result(terms, cs, ct, through, order, byChannel);
     }
 
     /** The terms a pole at s = s0 contributes, top log power first. */
-    private static List<Term> atPole(MellinMeasure m, RationalFunction amplitude, Rational s0, Rational ct, int order) {
+    private static List<Term> atPole(MellinMeasure m, RationalFunction amplitude, Rational s0, Rational ct, int order, boolean byChannel) {
         String s = m.s();
         String t = m.t();
         Rational power = m.uScale().multiply(s0).add(m.uOffset().constantValue());
@@ -204,13 +241,14 @@ public final class SmallUExpansion {
         if (order0 <= 0) {
             return List.of();
         }
-        RationalFunction r = amplitude.multiply(RationalFunction.of(sMinus.pow(mult)))
-                .evaluatePartially(Map.of(s, s0));
+        RationalFunction atS = amplitude.multiply(RationalFunction.of(sMinus.pow(mult)));
+        RationalFunction r = atS.evaluatePartially(Map.of(s, s0));
         int top = order0 - 1;
         Rational prefactor = leading.multiply(m.uScale().pow(top)).divide(ExactGamma.factorial(top))
                 .multiply(Rational.of(-1, 2));
         List<Term> out = new ArrayList<>();
-        List<Rational> series = tIntegral(m, tGammas, r, ct, order, where);
+        List<Rational> series = byChannel ? byChannel(m, tGammas, atS, s0, ct, order, where)
+                : tIntegral(m, tGammas, r, ct, order, where, null);
         List<Rational> scaled = new ArrayList<>();
         series.forEach(x -> scaled.add(x.multiply(prefactor)));
         out.add(new Term(power, top, scaled, null));
@@ -221,8 +259,99 @@ public final class SmallUExpansion {
         return out;
     }
 
-    /** {@code int dt/2/(2 pi i) V^(c t + d) r(t) prod Gamma(...)} as a series in (1 - V). */
-    private static List<Rational> tIntegral(MellinMeasure m, List<GammaPower> gammas, RationalFunction r, Rational ct, int order, String where) {
+    /**
+     * The t-integral of the residue {@code a(s0, t)} with every pole on its channel's side: a(s, t) is split
+     * at generic s into partial fractions in t, one simple pole per linear factor (its coefficient a
+     * function of s, evaluated at s0 afterwards, so two factors that meet at s0 stay apart), plus a
+     * polynomial in t; each part is integrated with its own side.
+     */
+    private static List<Rational> byChannel(MellinMeasure m, List<GammaPower> gammas, RationalFunction a, Rational s0, Rational ct,
+                                            int order, String where) {
+        String s = m.s();
+        String t = m.t();
+        Map<String, Rational> at = Map.of(s, s0);
+        RationalFunction r = a.evaluatePartially(at);
+        LinearFactors.Split split = LinearFactors.split(a.denominator());
+        if (split.cofactor().variables().contains(t)) {
+            throw new ContourException(where + ": the amplitude's denominator has a factor " + split.cofactor()
+                    + " that is not linear in " + t);
+        }
+        List<Rational> total = null;
+        RationalFunction rest = r;
+        for (LinearFactors.Factor f : split.factors()) {
+            Rational b = coefficient(f.base(), t);
+            if (b.isZero()) {
+                continue;
+            }
+            Integer side = channelSide(m, f.base(), t);
+            if (side == null || side == 0) {
+                throw new ContourException(where + ": no Gamma function of the measure runs parallel to the amplitude's pole "
+                        + f.base() + " = 0, so its channel does not fix its side");
+            }
+            if (f.multiplicity() > 1) {
+                throw new ContourException(where + ": the amplitude's pole " + f.base() + " = 0 has order " + f.multiplicity()
+                        + "; with poles placed by channel only simple poles are handled");
+            }
+            // Residue coefficient c(s) = (f a)(s, t*(s)), t*(s) the root of f.
+            Polynomial root = f.base().subtract(Polynomial.variable(t).multiply(b)).multiply(b.inverse().negate());
+            RationalFunction c = a.multiply(RationalFunction.of(f.base())).substituteLinear(Map.of(t, root));
+            if (c.denominator().evaluate(at).isZero()) {
+                throw new ContourException(where + ": the amplitude's pole " + f.base() + " = 0 meets another of its poles at "
+                        + s + " = " + s0 + " within one term (the t-contour is pinched)");
+            }
+            Polynomial fAt = f.base().substitute(Map.of(s, Polynomial.constant(s0)));
+            RationalFunction piece = c.evaluatePartially(at).divide(RationalFunction.of(fAt));
+            rest = rest.subtract(piece);
+            total = add(total, tIntegral(m, gammas, piece, ct, order, where, side > 0));
+        }
+        if (!rest.isPolynomial()) {
+            throw new ContourException(where + ": the partial fractions in " + t + " left " + rest + ", not a polynomial");
+        }
+        return add(total, tIntegral(m, gammas, rest, ct, order, where, Boolean.TRUE));
+    }
+
+    private static List<Rational> add(List<Rational> x, List<Rational> y) {
+        if (x == null) {
+            return y;
+        }
+        List<Rational> out = new ArrayList<>();
+        for (int i = 0; i < x.size(); i++) {
+            out.add(x.get(i).add(y.get(i)));
+        }
+        return out;
+    }
+
+    /**
+     * The side in {@code v} of a pole factor's channel: +1 right, -1 left, 0 when a parallel Gamma function
+     * does not depend on v; null when no Gamma argument of the measure runs parallel to it, or two do with
+     * opposite sides.
+     */
+    private static Integer channelSide(MellinMeasure m, Polynomial factor, String v) {
+        Rational a = coefficient(factor, m.s());
+        Rational b = coefficient(factor, m.t());
+        Integer side = null;
+        for (GammaPower g : m.factors()) {
+            if (g.exponent() <= 0) {
+                continue;
+            }
+            Rational beta = coefficient(g.argument(), m.s());
+            Rational gamma = coefficient(g.argument(), m.t());
+            if ((beta.isZero() && gamma.isZero()) || !a.multiply(gamma).equals(b.multiply(beta))) {
+                continue;
+            }
+            Rational slope = v.equals(m.s()) ? beta : gamma;
+            int here = -slope.signum();
+            if (side != null && side != here) {
+                return null;
+            }
+            side = here;
+        }
+        return side;
+    }
+
+    /** {@code int dt/2/(2 pi i) V^(c t + d) r(t) prod Gamma(...)} as a series in (1 - V); {@code side} as in BarnesIntegral. */
+    private static List<Rational> tIntegral(MellinMeasure m, List<GammaPower> gammas, RationalFunction r, Rational ct, int order, String where,
+                                            Boolean side) {
         String t = m.t();
         if (r.isZero()) {
             List<Rational> zeros = new ArrayList<>();
@@ -283,7 +412,7 @@ public final class SmallUExpansion {
         scale = scale.divide(kappa.multiply(Rational.of(2)));
         List<Rational> raw;
         try {
-            raw = BarnesIntegral.expand(lefts, rights, new UnivariatePolynomial(coeffs), poles, kappa.multiply(ct), lambda, mu, order);
+            raw = BarnesIntegral.expand(lefts, rights, new UnivariatePolynomial(coeffs), poles, kappa.multiply(ct), side, lambda, mu, order);
         } catch (ContourException e) {
             throw new ContourException(where + " (x = " + kappa + "*" + t + "): " + e.getMessage());
         }

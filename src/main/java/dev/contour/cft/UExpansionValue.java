@@ -28,7 +28,8 @@ public record UExpansionValue(SmallUExpansion.Result result) implements Value {
 
     private String plain() {
         StringBuilder b = new StringBuilder("small-U expansion: s-contour Re s = " + result.contourS() + " (Re t = " + result.contourT()
-                + ") closed on the right, powers up to U^" + result.through() + ", w = 1 - V to w^" + result.order() + ":");
+                + ") closed on the right" + (result.byChannel() ? ", amplitude poles on their channels' sides" : "")
+                + ", powers up to U^" + result.through() + ", w = 1 - V to w^" + result.order() + ":");
         if (result.terms().isEmpty()) {
             b.append("\n    (no poles right of the contour up to that power)");
         }
@@ -84,7 +85,7 @@ public record UExpansionValue(SmallUExpansion.Result result) implements Value {
             terms.add(b.append("}").toString());
         }
         return "{\"kind\":\"small-U expansion\",\"contour\":{\"s\":" + JsonPrinter.string(result.contourS().toString()) + ",\"t\":"
-                + JsonPrinter.string(result.contourT().toString()) + "},\"closed\":\"right\",\"through\":"
+                + JsonPrinter.string(result.contourT().toString()) + "},\"closed\":\"right\",\"sides\":\"" + (result.byChannel() ? "channels" : "contour") + "\",\"through\":"
                 + JsonPrinter.string(result.through().toString()) + ",\"order\":" + result.order() + ",\"terms\":[" + String.join(",", terms) + "]}";
     }
 }
