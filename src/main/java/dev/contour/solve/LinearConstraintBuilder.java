@@ -1,23 +1,25 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
+import dev.contour.Parallel;
 import dev.contour.algebra.Monomial;
 import dev.contour.algebra.Rational;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.atomic.AtomicLong;
-import java.util.stream.IntStream;
 
 /**
  * Turns constraints into the sparse linear system of their equations over Q.
  *
- * <p>Each constraint is applied to every piece independently (in parallel, in chunks on the common
- * fork-join pool); a piece's contributions are keyed by equation (collected monomial plus the
+ * <p>Each constraint is applied to every piece independently (in chunks of a fixed size on the shared
+ * pool, {@link Parallel}); a piece's contributions are keyed by equation (collected monomial plus the
  * expansion path that produced the number) and the rows are assembled sparsely by summing the
- * contributions under each key.
+ * contributions under each key. The chunks' maps are merged in chunk order as they finish, so the
+ * equations come out in the same order whatever the number of threads, and no chunk's map is kept
+ * once merged.
  */
 public final class LinearConstraintBuilder {
     private static final int CHUNK = 256;
@@ -47,11 +49,9 @@ public final class LinearConstraintBuilder {
             progress.constraint(k + 1, constraints.size());
             Map<Object, Accumulator> rows = collect(c, progress);
             // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
-            Cancellation.Token stop = Cancellation.current();
-            system.addRows(new ArrayList<>(rows.values()).parallelStream().map(acc -> {
-                stop.check();
-                return acc.toRow(tag);
-            }).toList());
+            List<Accumulator> accs = new ArrayList<>(rows.values());
+            rows.clear();
+            system.addRows(Parallel.map(accs.size(), i -> accs.get(i).toRow(tag)));
         }
         return system;
     }
@@ -67,33 +67,25 @@ public final class LinearConstraintBuilder {
         Applier apply = applier(c.condition, vars);
         int n = src.count();
         AtomicLong pieces = new AtomicLong();
-        // pool threads see neither the caller's interrupt nor its token: each piece checks the captured one
-        Cancellation.Token stop = Cancellation.current();
-        // one map per fork-join leaf, merged pairwise (the smaller into the larger) as leaves finish
-        return IntStream.range(0, n).parallel().collect(Holder::new, (holder, i) -> {
-            stop.check();
-            Map<Object, Accumulator> local = holder.map;
-            Piece piece = src.piece(i);
-            int col = piece.column;
-            for (int j = 0; j < piece.terms.size(); j++) {
-                apply.to(piece.terms.get(j), piece.monomials.get(j),
-                        (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+        // fixed chunks (not one per thread), merged in chunk order: the map's order, and so the
+        // order of the equations, is the same for any number of threads
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        Map<Object, Accumulator> merged = new LinkedHashMap<>(1 << 12);
+        Parallel.forEachOrdered(chunks, k -> {
+            Map<Object, Accumulator> local = new LinkedHashMap<>(1 << 10);
+            for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
+                Cancellation.check();
+                Piece piece = src.piece(i);
+                int col = piece.column;
+                for (int j = 0; j < piece.terms.size(); j++) {
+                    apply.to(piece.terms.get(j), piece.monomials.get(j),
+                            (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+                }
             }
-            long done = pieces.incrementAndGet();
-            if (done % CHUNK == 0) {
-                progress.pieces(done, n);
-            }
-        }, (left, right) -> {
-            Map<Object, Accumulator> big = left.map.size() >= right.map.size() ? left.map : right.map;
-            Map<Object, Accumulator> small = big == left.map ? right.map : left.map;
-            small.forEach((key, acc) -> big.merge(key, acc, Accumulator::merge));
-            left.map = big;
-        }).map;
-    }
-
-    /** A swappable map, so that merging leaves never copies the larger one. */
-    private static final class Holder {
-        Map<Object, Accumulator> map = new HashMap<>(1 << 12);
+            progress.pieces(pieces.addAndGet(Math.min(n, (k + 1) * CHUNK) - k * CHUNK), n);
+            return local;
+        }, (k, local) -> local.forEach((key, acc) -> merged.merge(key, acc, Accumulator::merge)));
+        return merged;
     }
 
     /** Applies a condition to one factored term under a root key. */
