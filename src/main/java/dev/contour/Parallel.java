@@ -37,6 +37,7 @@ public final class Parallel {
 
     private static final ThreadLocal<Boolean> IN_TASK = ThreadLocal.withInitial(() -> false);
     private static final AtomicInteger NAMES = new AtomicInteger();
+    private static final AtomicInteger RUNNING = new AtomicInteger();
     private static volatile int threads = defaultThreads();
     private static ThreadPoolExecutor pool;
 
@@ -161,6 +162,7 @@ public final class Parallel {
         Runnable loop = () -> Cancellation.run(mine, () -> {
             boolean was = IN_TASK.get();
             IN_TASK.set(true);
+            RUNNING.incrementAndGet();
             try {
                 for (int i = nextIndex.getAndIncrement(); i < n; i = nextIndex.getAndIncrement()) {
                     if (failure.get() != null) {
@@ -174,6 +176,7 @@ public final class Parallel {
                     mine.cancel("stopped: another part of the same computation failed");
                 }
             } finally {
+                RUNNING.decrementAndGet();
                 IN_TASK.set(was);
             }
         });
@@ -235,5 +238,14 @@ public final class Parallel {
             pool.setCorePoolSize(helpers);
         }
         return pool;
+    }
+
+    /**
+     * How many threads are inside a parallel call's work right now (the callers' own share
+     * included); zero once every call has returned, which tests use to see that no worker is left
+     * computing after an interrupt.
+     */
+    public static int running() {
+        return RUNNING.get();
     }
 }

@@ -22,7 +22,7 @@ import java.util.concurrent.atomic.AtomicLong;
  * once merged.
  */
 public final class LinearConstraintBuilder {
-    private static final int CHUNK = 256;
+    private static final int CHUNK = 64;
 
     private final List<String> unknowns;
     private final List<Constraint> constraints = new ArrayList<>();
@@ -72,7 +72,7 @@ public final class LinearConstraintBuilder {
         int chunks = (n + CHUNK - 1) / CHUNK;
         Map<Object, Accumulator> merged = new LinkedHashMap<>(1 << 12);
         Parallel.forEachOrdered(chunks, k -> {
-            Map<Object, Accumulator> local = new LinkedHashMap<>(1 << 10);
+            Map<Object, Accumulator> local = new LinkedHashMap<>(1 << 8);
             for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
                 Cancellation.check();
                 Piece piece = src.piece(i);
