@@ -51,7 +51,12 @@ public final class LinearConstraintBuilder {
             // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
             List<Accumulator> accs = new ArrayList<>(rows.values());
             rows.clear();
-            system.addRows(Parallel.map(accs.size(), i -> accs.get(i).toRow(tag)));
+            // each accumulator is dropped once it is a row, so the two forms of an equation are not all held at once
+            system.addRows(Parallel.map(accs.size(), i -> {
+                Accumulator acc = accs.get(i);
+                accs.set(i, null);
+                return acc.toRow(tag);
+            }));
         }
         return system;
     }
