@@ -115,4 +115,48 @@ class ParallelCollectionProperties {
     Arbitrary<List<Integer>> numbers() {
         return Arbitraries.integers().between(-1000, 1000).list().ofMaxSize(300);
     }
+
+    /**
+     * The modular solver takes its primes' images in batches on the pool: the solution (or the
+     * verdict of inconsistency) is the same with 1, 2 and 4 threads, and a planted unique solution
+     * is found. Large entries make it need several primes.
+     */
+    @Property(tries = 30)
+    void modularSolutionsDoNotDependOnTheThreadCount(@ForAll @net.jqwik.api.constraints.IntRange(min = 1, max = 12) int n,
+                                                     @ForAll @net.jqwik.api.constraints.IntRange(min = 1, max = 16) int m,
+                                                     @ForAll boolean spoil, @ForAll long seed) {
+        java.util.Random rnd = new java.util.Random(seed);
+        List<Rational> x = new ArrayList<>();
+        for (int i = 0; i < n; i++) {
+            x.add(Rational.of(java.math.BigInteger.valueOf(rnd.nextLong()).pow(2), java.math.BigInteger.valueOf(1 + rnd.nextInt(1000))));
+        }
+        List<Map<Integer, Rational>> rows = new ArrayList<>();
+        List<Rational> rhs = new ArrayList<>();
+        for (int r = 0; r < m; r++) {
+            Map<Integer, Rational> c = new java.util.HashMap<>();
+            Rational b = Rational.ZERO;
+            for (int i = 0; i < n; i++) {
+                if (rnd.nextInt(2) == 0) {
+                    Rational v = Rational.of(rnd.nextInt(2001) - 1000, 1 + rnd.nextInt(9));
+                    c.put(i, v);
+                    b = b.add(v.multiply(x.get(i)));
+                }
+            }
+            rows.add(c);
+            rhs.add(spoil && r == m - 1 ? b.add(Rational.ONE) : b);
+        }
+        List<LinearSystem.Solution> found = new ArrayList<>();
+        for (int t : THREADS) {
+            LinearSystem sys = new LinearSystem(n);
+            for (int r = 0; r < m; r++) {
+                sys.addRow(rows.get(r), rhs.get(r), r);
+            }
+            found.add(withThreads(t, sys::solve));
+        }
+        assertEquals(found.get(0), found.get(1), "2 threads");
+        assertEquals(found.get(0), found.get(2), "4 threads");
+        if (!spoil && found.get(0) instanceof LinearSystem.Unique u) {
+            assertEquals(x, u.values());
+        }
+    }
 }
