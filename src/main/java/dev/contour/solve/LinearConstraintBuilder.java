@@ -10,6 +10,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.atomic.AtomicLong;
+import java.util.concurrent.atomic.AtomicReferenceArray;
 
 /**
  * Turns constraints into the sparse linear system of their equations over Q.
@@ -17,12 +18,14 @@ import java.util.concurrent.atomic.AtomicLong;
  * <p>Each constraint is applied to every piece independently (in chunks of a fixed size on the shared
  * pool, {@link Parallel}); a piece's contributions are keyed by equation (collected monomial plus the
  * expansion path that produced the number) and the rows are assembled sparsely by summing the
- * contributions under each key. The chunks' maps are merged in chunk order as they finish, so the
- * equations come out in the same order whatever the number of threads, and no chunk's map is kept
- * once merged.
+ * contributions under each key. The chunks' maps are merged in chunk order as they finish (each of
+ * a fixed number of shards of the keys on its own), so the equations come out in the same order
+ * whatever the number of threads, and no chunk's map is kept once merged.
  */
 public final class LinearConstraintBuilder {
     private static final int CHUNK = 64;
+    /** Shards of the equation map (a power of two, at most 32: see {@link #shard}). */
+    private static final int SHARDS = 32;
 
     private final List<String> unknowns;
     private final List<Constraint> constraints = new ArrayList<>();
@@ -47,10 +50,13 @@ public final class LinearConstraintBuilder {
             Constraint c = constraints.get(k);
             int tag = system.constraint(c.span, c.label);
             progress.constraint(k + 1, constraints.size());
-            Map<Object, Accumulator> rows = collect(c, progress);
-            // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
-            List<Accumulator> accs = new ArrayList<>(rows.values());
-            rows.clear();
+            // rows in a fixed order (shard by shard, each in the order its keys were first met in
+            // chunk order), so pivots and free unknowns are reproducible for any thread count
+            List<Accumulator> accs = new ArrayList<>();
+            for (Map<Object, Accumulator> shard : collect(c, progress)) {
+                accs.addAll(shard.values());
+                shard.clear();
+            }
             // each accumulator is dropped once it is a row, so the two forms of an equation are not all held at once
             system.addRows(Parallel.map(accs.size(), i -> {
                 Accumulator acc = accs.get(i);
@@ -66,31 +72,65 @@ public final class LinearConstraintBuilder {
         return build(progress).solve(progress);
     }
 
-    private Map<Object, Accumulator> collect(Constraint c, SolveProgress progress) {
+    /**
+     * The contributions of every piece summed per equation key, in {@link #SHARDS} maps by key hash.
+     * Pieces go in fixed chunks (not one per thread) to the pool; each chunk's contributions are
+     * split by shard, and each shard merges the chunks in chunk order (under its own lock, by
+     * whichever thread completes the next chunk in line), so the shards merge at the same time and
+     * their contents and order do not depend on the number of threads. A chunk's maps are dropped
+     * once merged.
+     */
+    private List<Map<Object, Accumulator>> collect(Constraint c, SolveProgress progress) {
         Constraint.PieceSource src = c.source;
         List<String> vars = src.variables();
         Applier apply = applier(c.condition, vars);
         int n = src.count();
         AtomicLong pieces = new AtomicLong();
-        // fixed chunks (not one per thread), merged in chunk order: the map's order, and so the
-        // order of the equations, is the same for any number of threads
         int chunks = (n + CHUNK - 1) / CHUNK;
-        Map<Object, Accumulator> merged = new LinkedHashMap<>(1 << 12);
-        Parallel.forEachOrdered(chunks, k -> {
-            Map<Object, Accumulator> local = new LinkedHashMap<>(1 << 8);
+        List<Map<Object, Accumulator>> merged = new ArrayList<>();
+        Object[] locks = new Object[SHARDS];
+        int[] nextChunk = new int[SHARDS];
+        for (int s = 0; s < SHARDS; s++) {
+            merged.add(new LinkedHashMap<>());
+            locks[s] = new Object();
+        }
+        AtomicReferenceArray<Map<Object, Accumulator>[]> done = new AtomicReferenceArray<>(chunks);
+        Parallel.map(chunks, k -> {
+            @SuppressWarnings("unchecked")
+            Map<Object, Accumulator>[] local = new Map[SHARDS];
+            for (int s = 0; s < SHARDS; s++) {
+                local[s] = new LinkedHashMap<>(64);
+            }
             for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
                 Cancellation.check();
                 Piece piece = src.piece(i);
                 int col = piece.column;
                 for (int j = 0; j < piece.terms.size(); j++) {
-                    apply.to(piece.terms.get(j), piece.monomials.get(j),
-                            (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+                    apply.to(piece.terms.get(j), piece.monomials.get(j), (key, value) ->
+                            local[shard(key)].computeIfAbsent(key, x -> new Accumulator()).add(col, value));
                 }
             }
             progress.pieces(pieces.addAndGet(Math.min(n, (k + 1) * CHUNK) - k * CHUNK), n);
-            return local;
-        }, (k, local) -> local.forEach((key, acc) -> merged.merge(key, acc, Accumulator::merge)));
+            done.set(k, local); // published before any shard is merged, so a merger holding a lock sees it or we do
+            for (int s = 0; s < SHARDS; s++) {
+                synchronized (locks[s]) {
+                    Map<Object, Accumulator> into = merged.get(s);
+                    for (int next = nextChunk[s]; next < chunks && done.get(next) != null; next = ++nextChunk[s]) {
+                        Map<Object, Accumulator>[] ready = done.get(next);
+                        ready[s].forEach((key, acc) -> into.merge(key, acc, Accumulator::merge));
+                        ready[s] = null;
+                    }
+                }
+            }
+            return null;
+        });
         return merged;
+    }
+
+    private static int shard(Object key) {
+        int h = key.hashCode();
+        h ^= h >>> 16;
+        return (h * 0x9E3779B9 >>> 27) & (SHARDS - 1);
     }
 
     /** Applies a condition to one factored term under a root key. */
