@@ -178,71 +178,120 @@ public final class LinearConstraintBuilder {
         return m;
     }
 
-    /** Contributions to one equation: column to summed value (-1 is the part free of unknowns). */
+    /**
+     * Contributions to one equation: column to summed value (-1 is the part free of unknowns).
+     * Compact because a p = 512 ansatz holds over a million of them at once (most with one or two
+     * entries): the first entry lives in fields, the others in arrays; a value is kept as a
+     * numerator and denominator pair of longs while it fits, a {@link Rational} only when not.
+     */
     private static final class Accumulator {
-        private int[] cols = new int[2];
-        private Rational[] vals = new Rational[2];
         private int size;
+        private int col0;
+        private long num0;
+        private long den0;
+        private Rational big0;
+        /** Entries 1, 2, ... at index i - 1; {@code bigs} is null until a value needs it. */
+        private int[] cols;
+        private long[] nums;
+        private long[] dens;
+        private Rational[] bigs;
+
+        private int col(int i) {
+            return i == 0 ? col0 : cols[i - 1];
+        }
+
+        private Rational value(int i) {
+            if (i == 0) {
+                return big0 != null ? big0 : Rational.of(num0, den0);
+            }
+            Rational b = bigs == null ? null : bigs[i - 1];
+            return b != null ? b : Rational.of(nums[i - 1], dens[i - 1]);
+        }
+
+        private void set(int i, Rational v) {
+            boolean small = v.isSmall();
+            if (i == 0) {
+                big0 = small ? null : v;
+                num0 = small ? v.longNum() : 0;
+                den0 = small ? v.longDen() : 0;
+                return;
+            }
+            if (small) {
+                nums[i - 1] = v.longNum();
+                dens[i - 1] = v.longDen();
+                if (bigs != null) {
+                    bigs[i - 1] = null;
+                }
+            } else {
+                if (bigs == null) {
+                    bigs = new Rational[cols.length];
+                }
+                bigs[i - 1] = v;
+            }
+        }
 
         void add(int col, Rational v) {
             for (int i = 0; i < size; i++) {
-                if (cols[i] == col) {
-                    vals[i] = vals[i].add(v);
+                if (col(i) == col) {
+                    set(i, value(i).add(v));
                     return;
                 }
             }
-            if (size == cols.length) {
-                cols = Arrays.copyOf(cols, size * 2);
-                vals = Arrays.copyOf(vals, size * 2);
+            if (size > 0) {
+                int k = size - 1;
+                if (cols == null) {
+                    cols = new int[2];
+                    nums = new long[2];
+                    dens = new long[2];
+                } else if (k == cols.length) {
+                    cols = Arrays.copyOf(cols, k * 2);
+                    nums = Arrays.copyOf(nums, k * 2);
+                    dens = Arrays.copyOf(dens, k * 2);
+                    if (bigs != null) {
+                        bigs = Arrays.copyOf(bigs, k * 2);
+                    }
+                }
+                cols[k] = col;
+            } else {
+                col0 = col;
             }
-            cols[size] = col;
-            vals[size++] = v;
+            set(size++, v);
         }
 
         Accumulator merge(Accumulator o) {
             for (int i = 0; i < o.size; i++) {
-                add(o.cols[i], o.vals[i]);
+                add(o.col(i), o.value(i));
             }
             return this;
         }
 
         IntegerRow toRow(int tag) {
-            // insertion sort by column: accumulators are short
-            for (int i = 1; i < size; i++) {
-                for (int j = i; j > 0 && cols[j - 1] > cols[j]; j--) {
-                    int c = cols[j];
-                    cols[j] = cols[j - 1];
-                    cols[j - 1] = c;
-                    Rational v = vals[j];
-                    vals[j] = vals[j - 1];
-                    vals[j - 1] = v;
-                }
-            }
-            Rational rhs = Rational.ZERO;
+            int[] cs = new int[size];
+            Rational[] vs = new Rational[size];
             int n = 0;
+            Rational rhs = Rational.ZERO;
             for (int i = 0; i < size; i++) {
-                if (!vals[i].isZero() && cols[i] >= 0) {
-                    n++;
-                }
-            }
-            int[] cs = new int[n];
-            Rational[] vs = new Rational[n];
-            n = 0;
-            for (int i = 0; i < size; i++) {
-                if (vals[i].isZero()) {
+                Rational v = value(i);
+                if (v.isZero()) {
                     continue;
                 }
-                if (cols[i] < 0) {
-                    rhs = vals[i].negate();
+                if (col(i) < 0) {
+                    rhs = v.negate();
                 } else {
-                    cs[n] = cols[i];
-                    vs[n++] = vals[i];
+                    // insertion by column: accumulators are short
+                    int j = n++;
+                    for (; j > 0 && cs[j - 1] > col(i); j--) {
+                        cs[j] = cs[j - 1];
+                        vs[j] = vs[j - 1];
+                    }
+                    cs[j] = col(i);
+                    vs[j] = v;
                 }
             }
             if (n == 0 && rhs.isZero()) {
                 return null;
             }
-            return IntegerRow.of(cs, vs, rhs, tag);
+            return IntegerRow.of(n == size ? cs : Arrays.copyOf(cs, n), n == size ? vs : Arrays.copyOf(vs, n), rhs, tag);
         }
     }
 }
