@@ -13,7 +13,7 @@ import java.util.function.Supplier;
  * a millisecond, so a stop request ends the work within a fraction of a second. A check costs a
  * thread-local read, an interrupt-flag read and, when a deadline is set, a clock read.
  *
- * <p>Work handed to other threads (parallel streams) captures {@link #current()} on the calling
+ * <p>Work handed to other threads ({@link Parallel}) captures {@link #current()} on the calling
  * thread and calls {@link Token#check()} on it, since a pool thread sees neither the caller's
  * interrupt nor its thread-local token. A stop is sticky on the token: once one check has failed,
  * every later check of the same token fails too, even if the thread's interrupt flag is cleared,

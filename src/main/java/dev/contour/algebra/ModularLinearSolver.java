@@ -1,6 +1,7 @@
 package dev.contour.algebra;
 
 import dev.contour.Cancellation;
+import dev.contour.Parallel;
 import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -141,6 +142,9 @@ final class ModularLinearSolver {
         int[] residues;
     }
 
+    /** Stands for an image whose prime found the rows inconsistent (deques hold no nulls). */
+    private static final Image INCONSISTENT = new Image();
+
     private LinearSystem.Solution run() {
         List<Long> primes = new ArrayList<>();
         List<int[]> residues = new ArrayList<>();
@@ -154,11 +158,29 @@ final class ModularLinearSolver {
         double capBits = 2 * hadamardBits + 31 * 40;
         double modBits = 0;
         long p = PRIME_BOUND;
+        // Images for the next primes are computed a batch at a time on the shared pool and then
+        // taken one by one in descending prime order, exactly as a single thread takes them, so
+        // the primes used and the answer do not depend on the number of threads (a batch may
+        // compute a few images that are not needed).
+        java.util.ArrayDeque<Long> nextPrimes = new java.util.ArrayDeque<>();
+        java.util.ArrayDeque<Image> nextImages = new java.util.ArrayDeque<>();
         while (true) {
             Cancellation.check();
-            p = ModularPoly.previousPrime(p);
-            Image img = image(p);
-            if (img == null) {
+            if (nextImages.isEmpty()) {
+                long[] batch = new long[Math.max(1, Math.min(Parallel.threads(), 8))];
+                for (int i = 0; i < batch.length; i++) {
+                    p = ModularPoly.previousPrime(p);
+                    batch[i] = p;
+                    nextPrimes.add(p);
+                }
+                // an image is null when the rows are inconsistent modulo its prime: kept as a marker
+                for (Image img : Parallel.map(batch.length, i -> image(batch[i]))) {
+                    nextImages.add(img == null ? INCONSISTENT : img);
+                }
+            }
+            p = nextPrimes.poll();
+            Image img = nextImages.poll();
+            if (img == INCONSISTENT) {
                 return null;
             }
             int cmp = ref == null ? -1 : compareProfile(img, ref);

@@ -1,6 +1,7 @@
 package dev.contour.algebra;
 
 import dev.contour.Cancellation;
+import dev.contour.Parallel;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.HashMap;
@@ -111,25 +112,43 @@ public final class ShiftedSum {
         return value;
     }
 
-    /** The collected sum of c * f(shifted) over the blocks (any shifts, collected variables included). */
+    /**
+     * The collected sum of c * f(shifted) over the blocks (any shifts, collected variables included).
+     * The blocks' shifted products are formed on the shared pool ({@link Parallel}) and gathered in
+     * block order; then each collected monomial's sum, its own canonical rational function, is
+     * formed on the pool, so the value does not depend on the number of threads.
+     */
     public static Expression expandAt(List<Block> blocks, Expression argument) {
         Map<Monomial, List<RationalFunction>> parts = new HashMap<>();
-        for (Block b : blocks) {
+        Parallel.forEachOrdered(blocks.size(), k -> products(blocks.get(k), argument), (k, products) ->
+                products.forEach((m, list) -> parts.computeIfAbsent(m, x -> new ArrayList<>()).addAll(list)));
+        List<Map.Entry<Monomial, List<RationalFunction>>> work = new ArrayList<>(parts.entrySet());
+        parts.clear();
+        List<RationalFunction> sums = Parallel.map(work.size(), i -> {
+            List<RationalFunction> list = work.get(i).getValue();
+            RationalFunction sum = list.size() == 1 ? list.get(0) : RationalFunction.sum(list);
+            work.get(i).setValue(null); // the products are garbage once summed
+            return sum;
+        });
+        Map<Monomial, RationalFunction> out = new HashMap<>();
+        for (int i = 0; i < work.size(); i++) {
+            out.put(work.get(i).getKey(), sums.get(i));
+        }
+        return Expression.of(out);
+    }
+
+    /** c * f(shifted) for one block, grouped by collected monomial (in the order of the terms). */
+    private static Map<Monomial, List<RationalFunction>> products(Block b, Expression argument) {
+        Map<Monomial, List<RationalFunction>> parts = new java.util.LinkedHashMap<>();
+        Cancellation.check();
+        Expression moved = b.shift().isEmpty() ? argument : argument.substituteLinear(b.substitution());
+        for (Map.Entry<Monomial, RationalFunction> x : b.coefficient().terms().entrySet()) {
             Cancellation.check();
-            Expression moved = b.shift().isEmpty() ? argument : argument.substituteLinear(b.substitution());
-            for (Map.Entry<Monomial, RationalFunction> x : b.coefficient().terms().entrySet()) {
-                Cancellation.check();
-                for (Map.Entry<Monomial, RationalFunction> y : moved.terms().entrySet()) {
-                    parts.computeIfAbsent(x.getKey().multiply(y.getKey()), k -> new ArrayList<>())
-                            .add(x.getValue().multiply(y.getValue()));
-                }
+            for (Map.Entry<Monomial, RationalFunction> y : moved.terms().entrySet()) {
+                parts.computeIfAbsent(x.getKey().multiply(y.getKey()), k -> new ArrayList<>())
+                        .add(x.getValue().multiply(y.getValue()));
             }
         }
-        Map<Monomial, RationalFunction> out = new HashMap<>();
-        parts.forEach((m, list) -> {
-            Cancellation.check();
-            out.put(m, list.size() == 1 ? list.get(0) : RationalFunction.sum(list));
-        });
-        return Expression.of(out);
+        return parts;
     }
 }

@@ -24,7 +24,12 @@ final class Bench {
             return Main.BAD_INPUT;
         }
         if (w.report() != null) {
-            w.report().accept(out);
+            try {
+                w.report().accept(out);
+            } catch (dev.contour.ContourException e) {
+                err.println("contour: " + e.getMessage()); // a bad CONTOUR_*_P list, say
+                return Main.BAD_INPUT;
+            }
             return Main.OK;
         }
         int repeats;

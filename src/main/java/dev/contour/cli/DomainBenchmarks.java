@@ -10,12 +10,13 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
     @Override
     public void register(BenchRegistry r) {
         r.register(BenchRegistry.Workload.report("ward",
-                "build M = R^ M~ for the equal-weight AdS5xS5 ansatz, p = 2..128, then its pole and residue analysis",
-                out -> WardBench.runWard(out, 2, 4, 8, 16, 32, 64, 128)));
+                "build M = R^ M~ for the equal-weight AdS5xS5 ansatz, p = 2..128 (or CONTOUR_WARD_P=\"64,128\"),"
+                        + " then its pole and residue analysis",
+                out -> WardBench.runWard(out, weights("CONTOUR_WARD_P", 2, 4, 8, 16, 32, 64, 128))));
         r.register(BenchRegistry.Workload.report("solve",
                 "run the equal-weight AdS5xS5 ansatz script (sum, ward(p), solve for polynomial residues), p = 2..512;"
-                        + " unknowns, equations, build and solve times",
-                out -> SolveBench.runSolve(out, 2, 8, 32, 64, 128, 256, 512)));
+                        + " unknowns, equations, build and solve times (CONTOUR_SOLVE_P=\"512\" for chosen weights)",
+                out -> SolveBench.runSolve(out, weights("CONTOUR_SOLVE_P", 2, 8, 32, 64, 128, 256, 512))));
         r.register(BenchRegistry.Workload.report("ansatz-sum",
                 "evaluate the AdS5xS5 reduced ansatz as a script's sum over i + j + k = p - 2 with utilde eliminated, p = 32, 128, 512",
                 out -> AnsatzSumBench.run(out, 32, 128, 512)));
@@ -25,5 +26,18 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
         dev.contour.bench.CftDataBench.register(r);
         dev.contour.bench.SweepBench.register(r);
         dev.contour.bench.Ads7Bench.register(r);
+    }
+
+    /** The weights named by the environment variable (comma-separated), else the defaults. */
+    private static int[] weights(String variable, int... defaults) {
+        String env = System.getenv(variable);
+        if (env == null || env.isBlank()) {
+            return defaults;
+        }
+        try {
+            return java.util.Arrays.stream(env.split(",")).map(String::trim).mapToInt(Integer::parseInt).toArray();
+        } catch (NumberFormatException e) {
+            throw new dev.contour.ContourException(variable + " must list whole numbers separated by commas, not '" + env + "'");
+        }
     }
 }

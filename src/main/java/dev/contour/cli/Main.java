@@ -1,6 +1,7 @@
 package dev.contour.cli;
 
 import dev.contour.ContourException;
+import dev.contour.Parallel;
 import dev.contour.eval.Interpreter;
 import dev.contour.eval.EvaluationLimits;
 import dev.contour.eval.InterpreterOptions;
@@ -53,6 +54,9 @@ public final class Main {
               --memory-budget MIB     heap one statement may add (default: three quarters
                                of the Java heap; 0 for no limit)
               --max-digits DIGITS     largest exact number, in decimal digits (default 315652)
+              --threads N      threads for independent parts of a computation (default:
+                               $CONTOUR_THREADS, else the number of cores; 1 = sequential);
+                               also --threads=N
               --debug          show Java detail (stack traces) on errors
               -h, --help       this help
               -V, --version    the version
@@ -71,6 +75,25 @@ public final class Main {
 
     /** Runs the command line in-process (tests call this); returns the exit code. */
     public static int run(String[] args, InputStream in, PrintStream out, PrintStream err) {
+        // --threads applies to this command only: an in-process caller keeps its own setting
+        int threadsBefore = Parallel.threads();
+        try {
+            return runCommand(args, in, out, err);
+        } finally {
+            Parallel.setThreads(threadsBefore);
+        }
+    }
+
+    private static int runCommand(String[] args, InputStream in, PrintStream out, PrintStream err) {
+        String threadsEnv = System.getenv(Parallel.THREADS_VARIABLE);
+        if (threadsEnv != null && !threadsEnv.isBlank()) {
+            try {
+                Parallel.setThreads(Parallel.parseThreads(threadsEnv, Parallel.THREADS_VARIABLE));
+            } catch (ContourException e) {
+                err.println("contour: " + e.getMessage());
+                return BAD_INPUT;
+            }
+        }
         List<String> rest = new ArrayList<>(Arrays.asList(args));
         Options options = new Options();
         List<String> operands = new ArrayList<>();
@@ -103,6 +126,17 @@ public final class Main {
                         return BAD_INPUT;
                     }
                 }
+                case "--threads" -> {
+                    if (index + 1 >= rest.size()) {
+                        err.println("contour: --threads needs a whole number (--threads N or --threads=N)");
+                        return BAD_INPUT;
+                    }
+                    String problem = threads("--threads", rest.get(++index));
+                    if (problem != null) {
+                        err.println("contour: " + problem);
+                        return BAD_INPUT;
+                    }
+                }
                 case "--rules" -> {
                     if (index + 1 >= rest.size()) {
                         err.println("contour: --rules needs a folder (--rules DIR or --rules=DIR)");
@@ -126,7 +160,13 @@ public final class Main {
                     return OK;
                 }
                 default -> {
-                    if (a.startsWith("--rules=")) {
+                    if (a.startsWith("--threads=")) {
+                        String problem = threads("--threads", a.substring("--threads=".length()));
+                        if (problem != null) {
+                            err.println("contour: " + problem);
+                            return BAD_INPUT;
+                        }
+                    } else if (a.startsWith("--rules=")) {
                         options.rules = Path.of(a.substring("--rules=".length()));
                     } else if (a.startsWith("--report=")) {
                         options.report = Path.of(a.substring("--report=".length()));
@@ -171,6 +211,16 @@ public final class Main {
                     err.println("contour: unknown command '" + command + "' (see 'contour --help')");
                 }
                 return BAD_INPUT;
+        }
+    }
+
+    /** Applies a thread count; returns what is wrong with it, or null. */
+    private static String threads(String option, String value) {
+        try {
+            Parallel.setThreads(Parallel.parseThreads(value, option));
+            return null;
+        } catch (ContourException e) {
+            return e.getMessage();
         }
     }
 

@@ -63,12 +63,13 @@ public final class PoleAnalysis {
     /** The poles of every coefficient of {@code f} in the variables {@code mellin}, classified by {@code forms}. */
     public static Result of(Expression f, List<NamedForm> forms, Collection<String> mellin) {
         TreeMap<Monomial, List<Pole>> by = new TreeMap<>();
-        Map<LinearFactors.Factor, Pole> memo = new java.util.HashMap<>();
-        f.terms().forEach((m, c) -> {
-            Cancellation.check();
-            List<Pole> poles = poles(c, forms, mellin, memo);
+        // each coefficient on its own, on the shared pool; the memo is shared (a factor classified
+        // twice gives the same pole), the map is filled in the order of the monomials
+        Map<LinearFactors.Factor, Pole> memo = new java.util.concurrent.ConcurrentHashMap<>();
+        List<Map.Entry<Monomial, RationalFunction>> terms = new ArrayList<>(f.terms().entrySet());
+        dev.contour.Parallel.forEachOrdered(terms.size(), i -> poles(terms.get(i).getValue(), forms, mellin, memo), (i, poles) -> {
             if (!poles.isEmpty()) {
-                by.put(m, poles);
+                by.put(terms.get(i).getKey(), poles);
             }
         });
         return new Result(by);

@@ -2,6 +2,7 @@ package dev.contour.mellin;
 
 import dev.contour.Cancellation;
 import dev.contour.ContourException;
+import dev.contour.Parallel;
 import dev.contour.algebra.Expression;
 import dev.contour.algebra.LinearFactors;
 import dev.contour.algebra.Monomial;
@@ -60,24 +61,31 @@ public final class ResiduePolynomiality {
 
     /** Checks every coefficient of {@code f} (no unknowns: each collected monomial on its own). */
     public static Result check(Expression f, List<NamedForm> forms, List<String> mellin) {
+        // Each coefficient is checked on its own (on the shared pool); the failures are listed in
+        // the order of the monomials whatever the number of threads.
+        List<Map.Entry<Monomial, RationalFunction>> terms = new ArrayList<>(f.terms().entrySet());
+        Map<LinearFactors.Factor, Pole> memo = new java.util.concurrent.ConcurrentHashMap<>();
         List<Failure> failures = new ArrayList<>();
-        // A simultaneous pole shows up twice (the residue at s = 2 keeps t = 4, the one at t = 4
-        // keeps s = 2): report each unordered pair once per coefficient.
-        java.util.Set<List<Object>> seen = new java.util.HashSet<>();
-        Map<LinearFactors.Factor, Pole> memo = new java.util.HashMap<>();
-        f.terms().forEach((m, c) -> {
-            Cancellation.check();
+        Parallel.forEachOrdered(terms.size(), i -> {
+            Monomial m = terms.get(i).getKey();
+            RationalFunction c = terms.get(i).getValue();
+            List<Failure> found = new ArrayList<>();
+            // A simultaneous pole shows up twice (the residue at s = 2 keeps t = 4, the one at t = 4
+            // keeps s = 2): report each unordered pair once per coefficient.
+            java.util.Set<java.util.Set<Polynomial>> seen = new java.util.HashSet<>();
             for (Pole pole : PoleAnalysis.poles(c, forms, mellin, memo)) {
+                Cancellation.check();
                 String x = residueVariable(pole.factor(), mellin);
                 LinearFactors.Factor d = firstInnerPole(c, pole, x, mellin);
                 if (d != null) {
                     Pole other = origin(c, pole, x, d, forms, mellin);
-                    if (seen.add(List.of(m, java.util.Set.of(pole.factor(), other.factor())))) {
-                        failures.add(new Failure(m, pole, other, d.base()));
+                    if (seen.add(java.util.Set.of(pole.factor(), other.factor()))) {
+                        found.add(new Failure(m, pole, other, d.base()));
                     }
                 }
             }
-        });
+            return found;
+        }, (i, found) -> failures.addAll(found));
         return new Result(failures);
     }
 

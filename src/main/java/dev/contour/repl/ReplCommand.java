@@ -23,7 +23,7 @@ public final class ReplCommand implements Subcommand {
               --history FILE   keep typed lines in FILE (default: $%s, else ~/.contour_history);
                                also --history=FILE
               --no-history     keep no history
-              --latex, --json, --rules DIR, --debug   as for 'contour run'
+              --latex, --json, --rules DIR, --threads N, --debug   as for 'contour run'
               --time-budget SECONDS, --memory-budget MIB, --max-digits DIGITS
                                budgets of each statement, as for 'contour run'
             """.formatted(ReplSettings.HISTORY_VARIABLE);
@@ -59,6 +59,10 @@ public final class ReplCommand implements Subcommand {
                     err.println("contour repl: " + e.getMessage());
                     return Main.BAD_INPUT;
                 }
+                continue;
+            }
+            if (a.equals("--threads") && i + 1 < args.size() || a.startsWith("--threads=")) {
+                i += a.equals("--threads") ? 1 : 0; // applied by Main before the session starts
                 continue;
             }
             if ((a.equals("--rules") || a.equals("--history")) && i + 1 < args.size()) {

@@ -1,6 +1,7 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
+import dev.contour.Parallel;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -146,7 +147,7 @@ final class ExactPropagation {
     /**
      * sum a_j x_j - b for every equation not used in propagation, as affine vectors over the
      * parameters; zero vectors dropped. Each component is scaled to integers once, so this is
-     * integer multiply-adds, in parallel over equations.
+     * integer multiply-adds, over equations on the shared pool (in equation order).
      */
     private static List<Rational[]> residuals(List<IntegerRow> rows, boolean[] used, Rational[][] val, int k) {
         BigInteger[] scale = new BigInteger[k + 1];
@@ -166,10 +167,10 @@ final class ExactPropagation {
                 x[j][c] = v.isZero() ? BigInteger.ZERO : v.numerator().multiply(lcm.divide(v.denominator()));
             }
         }
-        Cancellation.Token stop = Cancellation.current();
-        return IntStream.range(0, rows.size()).parallel().filter(r -> !used[r]).mapToObj(r -> {
-            stop.check();
-            IntegerRow row = rows.get(r);
+        int[] unused = IntStream.range(0, rows.size()).filter(r -> !used[r]).toArray();
+        List<Rational[]> out = new ArrayList<>();
+        for (Rational[] v : Parallel.map(unused.length, u -> {
+            IntegerRow row = rows.get(unused[u]);
             Rational[] res = null;
             for (int j = 0; j <= k; j++) {
                 BigInteger sum = j == 0 ? row.rhs.multiply(scale[0]).negate() : BigInteger.ZERO;
@@ -187,7 +188,12 @@ final class ExactPropagation {
                 }
             }
             return res;
-        }).filter(v -> v != null).toList();
+        })) {
+            if (v != null) {
+                out.add(v);
+            }
+        }
+        return out;
     }
 
     /**

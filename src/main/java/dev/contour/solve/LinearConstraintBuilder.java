@@ -1,26 +1,31 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
+import dev.contour.Parallel;
 import dev.contour.algebra.Monomial;
 import dev.contour.algebra.Rational;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.atomic.AtomicLong;
-import java.util.stream.IntStream;
+import java.util.concurrent.atomic.AtomicReferenceArray;
 
 /**
  * Turns constraints into the sparse linear system of their equations over Q.
  *
- * <p>Each constraint is applied to every piece independently (in parallel, in chunks on the common
- * fork-join pool); a piece's contributions are keyed by equation (collected monomial plus the
+ * <p>Each constraint is applied to every piece independently (in chunks of a fixed size on the shared
+ * pool, {@link Parallel}); a piece's contributions are keyed by equation (collected monomial plus the
  * expansion path that produced the number) and the rows are assembled sparsely by summing the
- * contributions under each key.
+ * contributions under each key. The chunks' maps are merged in chunk order as they finish (each of
+ * a fixed number of shards of the keys on its own), so the equations come out in the same order
+ * whatever the number of threads, and no chunk's map is kept once merged.
  */
 public final class LinearConstraintBuilder {
-    private static final int CHUNK = 256;
+    private static final int CHUNK = 64;
+    /** Shards of the equation map (a power of two, at most 32: see {@link #shard}). */
+    private static final int SHARDS = 32;
 
     private final List<String> unknowns;
     private final List<Constraint> constraints = new ArrayList<>();
@@ -45,13 +50,19 @@ public final class LinearConstraintBuilder {
             Constraint c = constraints.get(k);
             int tag = system.constraint(c.span, c.label);
             progress.constraint(k + 1, constraints.size());
-            Map<Object, Accumulator> rows = collect(c, progress);
-            // rows in a fixed order (map iteration is deterministic), so pivots and free unknowns are reproducible
-            Cancellation.Token stop = Cancellation.current();
-            system.addRows(new ArrayList<>(rows.values()).parallelStream().map(acc -> {
-                stop.check();
+            // rows in a fixed order (shard by shard, each in the order its keys were first met in
+            // chunk order), so pivots and free unknowns are reproducible for any thread count
+            List<Accumulator> accs = new ArrayList<>();
+            for (Map<Object, Accumulator> shard : collect(c, progress)) {
+                accs.addAll(shard.values());
+                shard.clear();
+            }
+            // each accumulator is dropped once it is a row, so the two forms of an equation are not all held at once
+            system.addRows(Parallel.map(accs.size(), i -> {
+                Accumulator acc = accs.get(i);
+                accs.set(i, null);
                 return acc.toRow(tag);
-            }).toList());
+            }));
         }
         return system;
     }
@@ -61,39 +72,65 @@ public final class LinearConstraintBuilder {
         return build(progress).solve(progress);
     }
 
-    private Map<Object, Accumulator> collect(Constraint c, SolveProgress progress) {
+    /**
+     * The contributions of every piece summed per equation key, in {@link #SHARDS} maps by key hash.
+     * Pieces go in fixed chunks (not one per thread) to the pool; each chunk's contributions are
+     * split by shard, and each shard merges the chunks in chunk order (under its own lock, by
+     * whichever thread completes the next chunk in line), so the shards merge at the same time and
+     * their contents and order do not depend on the number of threads. A chunk's maps are dropped
+     * once merged.
+     */
+    private List<Map<Object, Accumulator>> collect(Constraint c, SolveProgress progress) {
         Constraint.PieceSource src = c.source;
         List<String> vars = src.variables();
         Applier apply = applier(c.condition, vars);
         int n = src.count();
         AtomicLong pieces = new AtomicLong();
-        // pool threads see neither the caller's interrupt nor its token: each piece checks the captured one
-        Cancellation.Token stop = Cancellation.current();
-        // one map per fork-join leaf, merged pairwise (the smaller into the larger) as leaves finish
-        return IntStream.range(0, n).parallel().collect(Holder::new, (holder, i) -> {
-            stop.check();
-            Map<Object, Accumulator> local = holder.map;
-            Piece piece = src.piece(i);
-            int col = piece.column;
-            for (int j = 0; j < piece.terms.size(); j++) {
-                apply.to(piece.terms.get(j), piece.monomials.get(j),
-                        (key, value) -> local.computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+        int chunks = (n + CHUNK - 1) / CHUNK;
+        List<Map<Object, Accumulator>> merged = new ArrayList<>();
+        Object[] locks = new Object[SHARDS];
+        int[] nextChunk = new int[SHARDS];
+        for (int s = 0; s < SHARDS; s++) {
+            merged.add(new LinkedHashMap<>());
+            locks[s] = new Object();
+        }
+        AtomicReferenceArray<Map<Object, Accumulator>[]> done = new AtomicReferenceArray<>(chunks);
+        Parallel.map(chunks, k -> {
+            @SuppressWarnings("unchecked")
+            Map<Object, Accumulator>[] local = new Map[SHARDS];
+            for (int s = 0; s < SHARDS; s++) {
+                local[s] = new LinkedHashMap<>(64);
             }
-            long done = pieces.incrementAndGet();
-            if (done % CHUNK == 0) {
-                progress.pieces(done, n);
+            for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
+                Cancellation.check();
+                Piece piece = src.piece(i);
+                int col = piece.column;
+                for (int j = 0; j < piece.terms.size(); j++) {
+                    apply.to(piece.terms.get(j), piece.monomials.get(j), (key, value) ->
+                            local[shard(key)].computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+                }
             }
-        }, (left, right) -> {
-            Map<Object, Accumulator> big = left.map.size() >= right.map.size() ? left.map : right.map;
-            Map<Object, Accumulator> small = big == left.map ? right.map : left.map;
-            small.forEach((key, acc) -> big.merge(key, acc, Accumulator::merge));
-            left.map = big;
-        }).map;
+            progress.pieces(pieces.addAndGet(Math.min(n, (k + 1) * CHUNK) - k * CHUNK), n);
+            done.set(k, local); // published before any shard is merged, so a merger holding a lock sees it or we do
+            for (int s = 0; s < SHARDS; s++) {
+                synchronized (locks[s]) {
+                    Map<Object, Accumulator> into = merged.get(s);
+                    for (int next = nextChunk[s]; next < chunks && done.get(next) != null; next = ++nextChunk[s]) {
+                        Map<Object, Accumulator>[] ready = done.get(next);
+                        ready[s].forEach((key, acc) -> into.merge(key, acc, Accumulator::merge));
+                        ready[s] = null;
+                    }
+                }
+            }
+            return null;
+        });
+        return merged;
     }
 
-    /** A swappable map, so that merging leaves never copies the larger one. */
-    private static final class Holder {
-        Map<Object, Accumulator> map = new HashMap<>(1 << 12);
+    private static int shard(Object key) {
+        int h = key.hashCode();
+        h ^= h >>> 16;
+        return (h * 0x9E3779B9 >>> 27) & (SHARDS - 1);
     }
 
     /** Applies a condition to one factored term under a root key. */
@@ -141,71 +178,120 @@ public final class LinearConstraintBuilder {
         return m;
     }
 
-    /** Contributions to one equation: column to summed value (-1 is the part free of unknowns). */
+    /**
+     * Contributions to one equation: column to summed value (-1 is the part free of unknowns).
+     * Compact because a p = 512 ansatz holds over a million of them at once (most with one or two
+     * entries): the first entry lives in fields, the others in arrays; a value is kept as a
+     * numerator and denominator pair of longs while it fits, a {@link Rational} only when not.
+     */
     private static final class Accumulator {
-        private int[] cols = new int[2];
-        private Rational[] vals = new Rational[2];
         private int size;
+        private int col0;
+        private long num0;
+        private long den0;
+        private Rational big0;
+        /** Entries 1, 2, ... at index i - 1; {@code bigs} is null until a value needs it. */
+        private int[] cols;
+        private long[] nums;
+        private long[] dens;
+        private Rational[] bigs;
+
+        private int col(int i) {
+            return i == 0 ? col0 : cols[i - 1];
+        }
+
+        private Rational value(int i) {
+            if (i == 0) {
+                return big0 != null ? big0 : Rational.of(num0, den0);
+            }
+            Rational b = bigs == null ? null : bigs[i - 1];
+            return b != null ? b : Rational.of(nums[i - 1], dens[i - 1]);
+        }
+
+        private void set(int i, Rational v) {
+            boolean small = v.isSmall();
+            if (i == 0) {
+                big0 = small ? null : v;
+                num0 = small ? v.longNum() : 0;
+                den0 = small ? v.longDen() : 0;
+                return;
+            }
+            if (small) {
+                nums[i - 1] = v.longNum();
+                dens[i - 1] = v.longDen();
+                if (bigs != null) {
+                    bigs[i - 1] = null;
+                }
+            } else {
+                if (bigs == null) {
+                    bigs = new Rational[cols.length];
+                }
+                bigs[i - 1] = v;
+            }
+        }
 
         void add(int col, Rational v) {
             for (int i = 0; i < size; i++) {
-                if (cols[i] == col) {
-                    vals[i] = vals[i].add(v);
+                if (col(i) == col) {
+                    set(i, value(i).add(v));
                     return;
                 }
             }
-            if (size == cols.length) {
-                cols = Arrays.copyOf(cols, size * 2);
-                vals = Arrays.copyOf(vals, size * 2);
+            if (size > 0) {
+                int k = size - 1;
+                if (cols == null) {
+                    cols = new int[2];
+                    nums = new long[2];
+                    dens = new long[2];
+                } else if (k == cols.length) {
+                    cols = Arrays.copyOf(cols, k * 2);
+                    nums = Arrays.copyOf(nums, k * 2);
+                    dens = Arrays.copyOf(dens, k * 2);
+                    if (bigs != null) {
+                        bigs = Arrays.copyOf(bigs, k * 2);
+                    }
+                }
+                cols[k] = col;
+            } else {
+                col0 = col;
             }
-            cols[size] = col;
-            vals[size++] = v;
+            set(size++, v);
         }
 
         Accumulator merge(Accumulator o) {
             for (int i = 0; i < o.size; i++) {
-                add(o.cols[i], o.vals[i]);
+                add(o.col(i), o.value(i));
             }
             return this;
         }
 
         IntegerRow toRow(int tag) {
-            // insertion sort by column: accumulators are short
-            for (int i = 1; i < size; i++) {
-                for (int j = i; j > 0 && cols[j - 1] > cols[j]; j--) {
-                    int c = cols[j];
-                    cols[j] = cols[j - 1];
-                    cols[j - 1] = c;
-                    Rational v = vals[j];
-                    vals[j] = vals[j - 1];
-                    vals[j - 1] = v;
-                }
-            }
-            Rational rhs = Rational.ZERO;
+            int[] cs = new int[size];
+            Rational[] vs = new Rational[size];
             int n = 0;
+            Rational rhs = Rational.ZERO;
             for (int i = 0; i < size; i++) {
-                if (!vals[i].isZero() && cols[i] >= 0) {
-                    n++;
-                }
-            }
-            int[] cs = new int[n];
-            Rational[] vs = new Rational[n];
-            n = 0;
-            for (int i = 0; i < size; i++) {
-                if (vals[i].isZero()) {
+                Rational v = value(i);
+                if (v.isZero()) {
                     continue;
                 }
-                if (cols[i] < 0) {
-                    rhs = vals[i].negate();
+                if (col(i) < 0) {
+                    rhs = v.negate();
                 } else {
-                    cs[n] = cols[i];
-                    vs[n++] = vals[i];
+                    // insertion by column: accumulators are short
+                    int j = n++;
+                    for (; j > 0 && cs[j - 1] > col(i); j--) {
+                        cs[j] = cs[j - 1];
+                        vs[j] = vs[j - 1];
+                    }
+                    cs[j] = col(i);
+                    vs[j] = v;
                 }
             }
             if (n == 0 && rhs.isZero()) {
                 return null;
             }
-            return IntegerRow.of(cs, vs, rhs, tag);
+            return IntegerRow.of(n == size ? cs : Arrays.copyOf(cs, n), n == size ? vs : Arrays.copyOf(vs, n), rhs, tag);
         }
     }
 }

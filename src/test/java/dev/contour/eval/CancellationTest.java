@@ -12,7 +12,6 @@ import java.io.OutputStream;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.time.Duration;
-import java.util.concurrent.ForkJoinPool;
 import java.util.concurrent.TimeUnit;
 import java.util.concurrent.atomic.AtomicReference;
 import org.junit.jupiter.api.Test;
@@ -105,8 +104,7 @@ class CancellationTest {
         assertInstanceOf(ContourException.class, thrown.get());
         assertTrue(thrown.get().getMessage().endsWith("interrupted"), thrown.get().getMessage());
         assertTrue(((ContourException) thrown.get()).span().isKnown(), "the stop names the statement");
-        assertTrue(ForkJoinPool.commonPool().awaitQuiescence(BOUND_MILLIS, TimeUnit.MILLISECONDS),
-                "parallel helpers are still working");
+        assertEquals(0, dev.contour.Parallel.running(), "parallel helpers are still working");
     }
 
     private static PrintStream quiet() {
