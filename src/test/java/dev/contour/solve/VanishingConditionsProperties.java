@@ -59,7 +59,8 @@ class VanishingConditionsProperties {
         Map<Object, Rational> acc = new HashMap<>();
         int[] count = {0};
         for (RationalFunction f : List.of(f1, f2, whole.negate())) {
-            FactoredTerm t = Piece.factored(f, vars);
+            // numerators split into linear factors or kept whole: the same function, the same conditions
+            FactoredTerm t = rnd.nextBoolean() ? Piece.factored(f, vars) : Piece.withWholeNumerator(f, vars);
             if (t != null) {
                 TermConditions.vanish(vars, t, "root", (k, v) -> {
                     count[0]++;
