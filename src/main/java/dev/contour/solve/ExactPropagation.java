@@ -1,6 +1,7 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
+import dev.contour.algebra.LinearSystem;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -28,6 +29,11 @@ final class ExactPropagation {
     private ExactPropagation() { }
 
     static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress) {
+        return solve(rows, columns, progress, false);
+    }
+
+    /** As {@link #solve(List, int, SolveProgress)}; byElimination picks the reference parameter solve (tests). */
+    static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress, boolean byElimination) {
         Rational[][] val = new Rational[columns][];
         List<Integer> params = new ArrayList<>();
         int[][] byCol = rowsByColumn(rows, columns);
@@ -89,7 +95,7 @@ final class ExactPropagation {
         if (residual.isEmpty()) {
             return new Outcome(val, params.stream().mapToInt(Integer::intValue).toArray(), true);
         }
-        return reduceParameters(val, params, residual);
+        return byElimination ? reduceParametersByElimination(val, params, residual) : reduceParameters(val, params, residual);
     }
 
     /** Solves row for its one undetermined column; returns that column. */
@@ -191,10 +197,74 @@ final class ExactPropagation {
     }
 
     /**
-     * Solves the residual equations res_0 + sum_q res_q p_q = 0 for the parameters by exact
-     * elimination, then rewrites every value in the parameters that stay free.
+     * Solves the residual equations res_0 + sum_q res_q p_q = 0 for the parameters exactly, then
+     * rewrites every value in the parameters that stay free.
+     *
+     * <p>The parameter system is dense (each residual mixes many parameters), so it goes to the
+     * multi-modular solver of {@link LinearSystem}, verified over Q: rational Gauss-Jordan on it grew
+     * large numbers. Both give the reduced row echelon form with lowest-column pivots, which is
+     * unique, so the free parameters and every value are the same as by exact elimination.
      */
     private static Outcome reduceParameters(Rational[][] val, List<Integer> params, List<Rational[]> residual) {
+        int k = params.size();
+        if (k == 0) {
+            return new Outcome(null, null, false); // residuals are non-zero, and nothing is left to choose
+        }
+        LinearSystem system = new LinearSystem(k);
+        for (Rational[] res : residual) {
+            TreeMap<Integer, Rational> row = new TreeMap<>();
+            for (int q = 1; q <= k; q++) {
+                if (!res[q].isZero()) {
+                    row.put(q - 1, res[q]);
+                }
+            }
+            system.addRow(row, res[0].negate(), null);
+        }
+        LinearSystem.Solution solved = system.solve();
+        if (solved instanceof LinearSystem.Inconsistent) {
+            return new Outcome(null, null, false);
+        }
+        // parameter q (1-based) as affine in the free parameters: [constant, coefficient of free_1, ...]
+        List<Integer> freeQ = new ArrayList<>();
+        Rational[][] paramVal = new Rational[k + 1][];
+        if (solved instanceof LinearSystem.Unique u) {
+            for (int q = 1; q <= k; q++) {
+                paramVal[q] = new Rational[] {u.values().get(q - 1)};
+            }
+        } else {
+            LinearSystem.Family fam = (LinearSystem.Family) solved;
+            for (int f : fam.freeColumns()) {
+                freeQ.add(f + 1);
+            }
+            for (int q = 1; q <= k; q++) {
+                Rational[] v = zeros(freeQ.size() + 1);
+                v[0] = fam.particular().get(q - 1);
+                for (int i = 0; i < freeQ.size(); i++) {
+                    v[i + 1] = fam.nullBasis().get(i).get(q - 1);
+                }
+                paramVal[q] = v;
+            }
+        }
+        Rational[][] out = new Rational[val.length][];
+        for (int c = 0; c < val.length; c++) {
+            Rational[] v = zeros(freeQ.size() + 1);
+            v[0] = val[c][0];
+            for (int q = 1; q <= k; q++) {
+                if (!val[c][q].isZero()) {
+                    addScaled(v, paramVal[q], val[c][q]);
+                }
+            }
+            out[c] = v;
+        }
+        int[] free = freeQ.stream().mapToInt(q -> params.get(q - 1)).toArray();
+        return new Outcome(out, free, true);
+    }
+
+    /**
+     * The reference for {@link #reduceParameters} (its former body, kept for the tests): exact
+     * Gauss-Jordan over Q on the parameter system, lowest-column pivots.
+     */
+    static Outcome reduceParametersByElimination(Rational[][] val, List<Integer> params, List<Rational[]> residual) {
         int k = params.size();
         List<TreeMap<Integer, Rational>> pivRows = new ArrayList<>();
         List<Integer> pivCols = new ArrayList<>();
