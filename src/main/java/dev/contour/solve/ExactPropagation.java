@@ -1,7 +1,6 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
-import dev.contour.algebra.LinearSystem;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -28,12 +27,19 @@ final class ExactPropagation {
 
     private ExactPropagation() { }
 
+    /** The prime that picks the independent rows of the parameter system (below 2^31, so products fit a long). */
+    static final long PARAMETER_PRIME = 2147483629L;
+
     static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress) {
-        return solve(rows, columns, progress, false);
+        return solve(rows, columns, progress, PARAMETER_PRIME);
     }
 
-    /** As {@link #solve(List, int, SolveProgress)}; byElimination picks the reference parameter solve (tests). */
-    static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress, boolean byElimination) {
+    /**
+     * As {@link #solve(List, int, SolveProgress)}, choosing the parameter system's rows modulo the
+     * given prime; 0 runs the reference elimination on all of them (the tests use both, and small
+     * primes to reach the fallback).
+     */
+    static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress, long prime) {
         Rational[][] val = new Rational[columns][];
         List<Integer> params = new ArrayList<>();
         int[][] byCol = rowsByColumn(rows, columns);
@@ -95,7 +101,7 @@ final class ExactPropagation {
         if (residual.isEmpty()) {
             return new Outcome(val, params.stream().mapToInt(Integer::intValue).toArray(), true);
         }
-        return byElimination ? reduceParametersByElimination(val, params, residual) : reduceParameters(val, params, residual);
+        return prime <= 0 ? reduceParametersByElimination(val, params, residual) : reduceParameters(val, params, residual, prime);
     }
 
     /** Solves row for its one undetermined column; returns that column. */
@@ -200,72 +206,106 @@ final class ExactPropagation {
      * Solves the residual equations res_0 + sum_q res_q p_q = 0 for the parameters exactly, then
      * rewrites every value in the parameters that stay free.
      *
-     * <p>The parameter system is dense (each residual mixes many parameters), so it goes to the
-     * multi-modular solver of {@link LinearSystem}, verified over Q: rational Gauss-Jordan on it grew
-     * large numbers. Both give the reduced row echelon form with lowest-column pivots, which is
-     * unique, so the free parameters and every value are the same as by exact elimination.
+     * <p>The residual rows are many, dense in the parameters and carry large numbers, while their
+     * rank is at most the number of parameters. So the rows independent modulo one word-size prime
+     * are chosen first, exact Gauss-Jordan runs on those alone, and every residual row is then
+     * checked exactly against the result. When all hold, the chosen rows have the row space of the
+     * whole system, whose reduced row echelon form (lowest-column pivots) is unique: the free
+     * parameters and values are those of elimination on all rows. When one fails (an unlucky prime),
+     * elimination runs on all rows.
      */
-    private static Outcome reduceParameters(Rational[][] val, List<Integer> params, List<Rational[]> residual) {
+    private static Outcome reduceParameters(Rational[][] val, List<Integer> params, List<Rational[]> residual, long prime) {
         int k = params.size();
-        if (k == 0) {
-            return new Outcome(null, null, false); // residuals are non-zero, and nothing is left to choose
-        }
-        LinearSystem system = new LinearSystem(k);
-        for (Rational[] res : residual) {
-            TreeMap<Integer, Rational> row = new TreeMap<>();
-            for (int q = 1; q <= k; q++) {
-                if (!res[q].isZero()) {
-                    row.put(q - 1, res[q]);
-                }
+        List<Rational[]> chosen = independentModulo(residual, k, prime);
+        if (chosen != null && chosen.size() < residual.size()) {
+            ParameterValues pv = eliminate(k, chosen);
+            if (pv == null) {
+                return new Outcome(null, null, false); // some rows already conflict
             }
-            system.addRow(row, res[0].negate(), null);
-        }
-        LinearSystem.Solution solved = system.solve();
-        if (solved instanceof LinearSystem.Inconsistent) {
-            return new Outcome(null, null, false);
-        }
-        // parameter q (1-based) as affine in the free parameters: [constant, coefficient of free_1, ...]
-        List<Integer> freeQ = new ArrayList<>();
-        Rational[][] paramVal = new Rational[k + 1][];
-        if (solved instanceof LinearSystem.Unique u) {
-            for (int q = 1; q <= k; q++) {
-                paramVal[q] = new Rational[] {u.values().get(q - 1)};
-            }
-        } else {
-            LinearSystem.Family fam = (LinearSystem.Family) solved;
-            for (int f : fam.freeColumns()) {
-                freeQ.add(f + 1);
-            }
-            for (int q = 1; q <= k; q++) {
-                Rational[] v = zeros(freeQ.size() + 1);
-                v[0] = fam.particular().get(q - 1);
-                for (int i = 0; i < freeQ.size(); i++) {
-                    v[i + 1] = fam.nullBasis().get(i).get(q - 1);
-                }
-                paramVal[q] = v;
+            if (satisfiesAll(pv, residual)) {
+                return apply(val, params, pv);
             }
         }
-        Rational[][] out = new Rational[val.length][];
-        for (int c = 0; c < val.length; c++) {
-            Rational[] v = zeros(freeQ.size() + 1);
-            v[0] = val[c][0];
-            for (int q = 1; q <= k; q++) {
-                if (!val[c][q].isZero()) {
-                    addScaled(v, paramVal[q], val[c][q]);
-                }
-            }
-            out[c] = v;
-        }
-        int[] free = freeQ.stream().mapToInt(q -> params.get(q - 1)).toArray();
-        return new Outcome(out, free, true);
+        return reduceParametersByElimination(val, params, residual);
     }
 
     /**
-     * The reference for {@link #reduceParameters} (its former body, kept for the tests): exact
-     * Gauss-Jordan over Q on the parameter system, lowest-column pivots.
+     * The reference for {@link #reduceParameters} (its former path, kept for the tests and as the
+     * fallback): exact Gauss-Jordan over Q on every residual row, lowest-column pivots.
      */
     static Outcome reduceParametersByElimination(Rational[][] val, List<Integer> params, List<Rational[]> residual) {
-        int k = params.size();
+        ParameterValues pv = eliminate(params.size(), residual);
+        return pv == null ? new Outcome(null, null, false) : apply(val, params, pv);
+    }
+
+    /** Parameter q (1-based) as [constant, coefficient of each free parameter]; the free ones (1-based, ascending). */
+    private record ParameterValues(Rational[][] values, List<Integer> freeQ) { }
+
+    /**
+     * The rows (with their right sides) independent modulo p, in input order, found by incremental
+     * elimination; null when a denominator vanishes modulo p.
+     */
+    private static List<Rational[]> independentModulo(List<Rational[]> residual, int k, long p) {
+        // positions 0..k-1 are the parameters 1..k, position k the right side
+        long[][] pivot = new long[k + 1][];
+        List<Rational[]> chosen = new ArrayList<>();
+        BigInteger bp = BigInteger.valueOf(p);
+        for (Rational[] res : residual) {
+            long[] row = new long[k + 1];
+            for (int q = 0; q <= k; q++) {
+                if (!res[q].isZero()) {
+                    long den = res[q].denominator().mod(bp).longValue();
+                    if (den == 0) {
+                        return null;
+                    }
+                    long num = res[q].numerator().mod(bp).longValue();
+                    row[q == 0 ? k : q - 1] = num * inverseModulo(den, p) % p;
+                }
+            }
+            for (int c = 0; c <= k; c++) {
+                if (row[c] == 0) {
+                    continue;
+                }
+                if (pivot[c] == null) {
+                    long inv = inverseModulo(row[c], p);
+                    for (int j = c; j <= k; j++) {
+                        row[j] = row[j] * inv % p;
+                    }
+                    pivot[c] = row;
+                    chosen.add(res);
+                    break;
+                }
+                long f = p - row[c];
+                long[] pr = pivot[c];
+                for (int j = c; j <= k; j++) {
+                    row[j] = (row[j] + f * pr[j]) % p;
+                }
+            }
+        }
+        return chosen;
+    }
+
+    /** Whether every residual row vanishes on the parameter values (exactly). */
+    private static boolean satisfiesAll(ParameterValues pv, List<Rational[]> residual) {
+        int width = pv.freeQ().size() + 1;
+        for (Rational[] res : residual) {
+            for (int j = 0; j < width; j++) {
+                Rational sum = j == 0 ? res[0] : Rational.ZERO;
+                for (int q = 1; q < res.length; q++) {
+                    if (!res[q].isZero() && !pv.values()[q][j].isZero()) {
+                        sum = sum.add(res[q].multiply(pv.values()[q][j]));
+                    }
+                }
+                if (!sum.isZero()) {
+                    return false;
+                }
+            }
+        }
+        return true;
+    }
+
+    /** Exact Gauss-Jordan on the rows (lowest-column pivots); null when they are inconsistent. */
+    private static ParameterValues eliminate(int k, List<Rational[]> residual) {
         List<TreeMap<Integer, Rational>> pivRows = new ArrayList<>();
         List<Integer> pivCols = new ArrayList<>();
         for (Rational[] res : residual) {
@@ -284,7 +324,7 @@ final class ExactPropagation {
             Integer lead = row.keySet().stream().filter(q -> q > 0).findFirst().orElse(null);
             if (lead == null) {
                 if (!row.isEmpty()) {
-                    return new Outcome(null, null, false);
+                    return null;
                 }
                 continue;
             }
@@ -324,19 +364,43 @@ final class ExactPropagation {
             }
             paramVal[q] = v;
         }
+        return new ParameterValues(paramVal, freeQ);
+    }
+
+    /** Every column's value rewritten in the free parameters. */
+    private static Outcome apply(Rational[][] val, List<Integer> params, ParameterValues pv) {
+        List<Integer> freeQ = pv.freeQ();
         Rational[][] out = new Rational[val.length][];
         for (int c = 0; c < val.length; c++) {
             Rational[] v = zeros(freeQ.size() + 1);
             v[0] = val[c][0];
-            for (int q = 1; q <= k; q++) {
+            for (int q = 1; q < val[c].length; q++) {
                 if (!val[c][q].isZero()) {
-                    addScaled(v, paramVal[q], val[c][q]);
+                    addScaled(v, pv.values()[q], val[c][q]);
                 }
             }
             out[c] = v;
         }
         int[] free = freeQ.stream().mapToInt(q -> params.get(q - 1)).toArray();
         return new Outcome(out, free, true);
+    }
+
+    /** a^-1 mod p for 0 < a < p, p prime (extended Euclid). */
+    private static long inverseModulo(long a, long p) {
+        long r0 = p;
+        long r1 = a;
+        long t0 = 0;
+        long t1 = 1;
+        while (r1 != 0) {
+            long q = r0 / r1;
+            long r = r0 - q * r1;
+            r0 = r1;
+            r1 = r;
+            long t = t0 - q * t1;
+            t0 = t1;
+            t1 = t;
+        }
+        return t0 < 0 ? t0 + p : t0;
     }
 
     private static void axpy(TreeMap<Integer, Rational> row, TreeMap<Integer, Rational> piv, Rational f) {
