@@ -125,10 +125,13 @@ public final class ShiftedSum {
                 }
             }
         }
-        Map<Monomial, RationalFunction> out = new HashMap<>();
-        parts.forEach((m, list) -> {
-            Cancellation.check();
-            out.put(m, list.size() == 1 ? list.get(0) : RationalFunction.sum(list));
+        // The monomials' sums are independent: on the common pool, each worker checking the caller's token
+        Cancellation.Token stop = Cancellation.current();
+        Map<Monomial, RationalFunction> out = new java.util.concurrent.ConcurrentHashMap<>();
+        parts.entrySet().parallelStream().forEach(e -> {
+            stop.check();
+            List<RationalFunction> list = e.getValue();
+            out.put(e.getKey(), list.size() == 1 ? list.get(0) : Cancellation.under(stop, () -> RationalFunction.sum(list)));
         });
         return Expression.of(out);
     }

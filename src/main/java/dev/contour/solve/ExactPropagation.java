@@ -1,6 +1,7 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
+import dev.contour.algebra.LinearSystem;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -208,7 +209,7 @@ final class ExactPropagation {
      *
      * <p>The residual rows are many, dense in the parameters and carry large numbers, while their
      * rank is at most the number of parameters. So the rows independent modulo one word-size prime
-     * are chosen first, exact Gauss-Jordan runs on those alone, and every residual row is then
+     * are chosen first, those alone are solved exactly (multi-modular, verified), and every residual row is then
      * checked exactly against the result. When all hold, the chosen rows have the row space of the
      * whole system, whose reduced row echelon form (lowest-column pivots) is unique: the free
      * parameters and values are those of elimination on all rows. When one fails (an unlucky prime),
@@ -218,7 +219,7 @@ final class ExactPropagation {
         int k = params.size();
         List<Rational[]> chosen = independentModulo(residual, k, prime);
         if (chosen != null && chosen.size() < residual.size()) {
-            ParameterValues pv = eliminate(k, chosen);
+            ParameterValues pv = eliminateMultiModular(k, chosen);
             if (pv == null) {
                 return new Outcome(null, null, false); // some rows already conflict
             }
@@ -302,6 +303,49 @@ final class ExactPropagation {
             }
         }
         return true;
+    }
+
+    /**
+     * The same as {@link #eliminate} by the multi-modular solver of {@link LinearSystem} (verified over
+     * Q, the same reduced row echelon form): the chosen rows are few but their numbers are large, and
+     * rational Gauss-Jordan spent its time in the gcds of the growing fractions.
+     */
+    private static ParameterValues eliminateMultiModular(int k, List<Rational[]> rows) {
+        LinearSystem system = new LinearSystem(k);
+        for (Rational[] res : rows) {
+            TreeMap<Integer, Rational> row = new TreeMap<>();
+            for (int q = 1; q <= k; q++) {
+                if (!res[q].isZero()) {
+                    row.put(q - 1, res[q]);
+                }
+            }
+            system.addRow(row, res[0].negate(), null);
+        }
+        LinearSystem.Solution solved = system.solve();
+        if (solved instanceof LinearSystem.Inconsistent) {
+            return null;
+        }
+        List<Integer> freeQ = new ArrayList<>();
+        Rational[][] paramVal = new Rational[k + 1][];
+        if (solved instanceof LinearSystem.Unique u) {
+            for (int q = 1; q <= k; q++) {
+                paramVal[q] = new Rational[] {u.values().get(q - 1)};
+            }
+        } else {
+            LinearSystem.Family fam = (LinearSystem.Family) solved;
+            for (int f : fam.freeColumns()) {
+                freeQ.add(f + 1);
+            }
+            for (int q = 1; q <= k; q++) {
+                Rational[] v = zeros(freeQ.size() + 1);
+                v[0] = fam.particular().get(q - 1);
+                for (int i = 0; i < freeQ.size(); i++) {
+                    v[i + 1] = fam.nullBasis().get(i).get(q - 1);
+                }
+                paramVal[q] = v;
+            }
+        }
+        return new ParameterValues(paramVal, freeQ);
     }
 
     /** Exact Gauss-Jordan on the rows (lowest-column pivots); null when they are inconsistent. */
