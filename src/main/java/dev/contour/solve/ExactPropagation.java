@@ -1,7 +1,6 @@
 package dev.contour.solve;
 
 import dev.contour.Cancellation;
-import dev.contour.algebra.LinearSystem;
 import dev.contour.algebra.Rational;
 import java.math.BigInteger;
 import java.util.ArrayList;
@@ -209,21 +208,19 @@ final class ExactPropagation {
      *
      * <p>The residual rows are many, dense in the parameters and carry large numbers, while their
      * rank is at most the number of parameters. So the rows independent modulo one word-size prime
-     * are chosen first, those alone are solved exactly (multi-modular, verified), and every residual row is then
-     * checked exactly against the result. When all hold, the chosen rows have the row space of the
-     * whole system, whose reduced row echelon form (lowest-column pivots) is unique: the free
-     * parameters and values are those of elimination on all rows. When one fails (an unlucky prime),
+     * are chosen first, and their reduced row echelon form is found modulo further primes and
+     * rebuilt by rational reconstruction; the candidate is checked exactly against every residual
+     * row. When all hold, it is the reduced row echelon form (lowest-column pivots) of the whole
+     * system, which is unique: the free parameters and values are those of elimination on all rows.
+     * Otherwise (an unlucky prime, no candidate within the prime budget, an inconsistency) exact
      * elimination runs on all rows.
      */
     private static Outcome reduceParameters(Rational[][] val, List<Integer> params, List<Rational[]> residual, long prime) {
         int k = params.size();
         List<Rational[]> chosen = independentModulo(residual, k, prime);
         if (chosen != null && chosen.size() < residual.size()) {
-            ParameterValues pv = eliminateMultiModular(k, chosen);
-            if (pv == null) {
-                return new Outcome(null, null, false); // some rows already conflict
-            }
-            if (satisfiesAll(pv, residual)) {
+            ParameterValues pv = reconstructed(k, chosen, residual);
+            if (pv != null) {
                 return apply(val, params, pv);
             }
         }
@@ -306,46 +303,218 @@ final class ExactPropagation {
     }
 
     /**
-     * The same as {@link #eliminate} by the multi-modular solver of {@link LinearSystem} (verified over
-     * Q, the same reduced row echelon form): the chosen rows are few but their numbers are large, and
-     * rational Gauss-Jordan spent its time in the gcds of the growing fractions.
+     * The reduced row echelon form of the rows (lowest-column pivots) from their images modulo
+     * word-size primes, each entry recovered by rational reconstruction from the CRT residues, then
+     * checked exactly against every residual row; null when no candidate passes within the prime
+     * budget (or a prime finds the rows inconsistent), and the caller eliminates exactly.
+     *
+     * <p>Why it is exact (the argument of {@code ModularLinearSolver}, common practice): the
+     * candidate's pivot columns are independent over Q because they are modulo a prime; each null
+     * vector is 1 at its free column and otherwise supported on pivot columns below it, so when the
+     * exact check shows it annihilates every row, that free column is no pivot over Q; hence the pivot
+     * sets agree, and given them the particular solution and the null vectors are unique. Unlike
+     * the determinant-scaled reconstruction of that solver, the number of primes needed follows the
+     * size of the answer, not of the rows' numbers (hundreds of bits here, while the answer is small).
      */
-    private static ParameterValues eliminateMultiModular(int k, List<Rational[]> rows) {
-        LinearSystem system = new LinearSystem(k);
-        for (Rational[] res : rows) {
-            TreeMap<Integer, Rational> row = new TreeMap<>();
-            for (int q = 1; q <= k; q++) {
-                if (!res[q].isZero()) {
-                    row.put(q - 1, res[q]);
+    private static ParameterValues reconstructed(int k, List<Rational[]> rows, List<Rational[]> residual) {
+        int m = rows.size();
+        long p = 2147483587L; // below 2^31 - 1 and the prime that chose the rows
+        int[] bestPivots = null;
+        BigInteger modulus = BigInteger.ONE;
+        BigInteger[][] crt = null;  // per pivot index, per position (free columns..., rhs) the CRT value
+        int primes = 0;
+        int nextTry = 1;
+        for (int attempt = 0; attempt < 400; attempt++) {
+            p = previousPrime(p - 1);
+            long[][] red = reduce(k, rows, p);
+            if (red == null) {
+                continue;
+            }
+            // Gauss-Jordan modulo p, lowest-column pivots, rows in order
+            long[][] piv = new long[k][];
+            for (long[] row : red) {
+                for (int c = 0; c <= k; c++) {
+                    if (row[c] == 0) {
+                        continue;
+                    }
+                    if (c == k) {
+                        return null; // inconsistent modulo p: leave it to exact elimination
+                    }
+                    if (piv[c] == null) {
+                        // clear the later pivot columns too (pivot rows carry no other pivot column)
+                        for (int d = c + 1; d < k; d++) {
+                            if (piv[d] != null && row[d] != 0) {
+                                long f = p - row[d];
+                                long[] pd = piv[d];
+                                for (int j = d; j <= k; j++) {
+                                    row[j] = (row[j] + f * pd[j]) % p;
+                                }
+                            }
+                        }
+                        long inv = inverseModulo(row[c], p);
+                        for (int j = c; j <= k; j++) {
+                            row[j] = row[j] * inv % p;
+                        }
+                        for (long[] other : piv) {
+                            if (other != null && other[c] != 0) {
+                                long f = p - other[c];
+                                for (int j = c; j <= k; j++) {
+                                    other[j] = (other[j] + f * row[j]) % p;
+                                }
+                            }
+                        }
+                        piv[c] = row;
+                        break;
+                    }
+                    long f = p - row[c];
+                    long[] pr = piv[c];
+                    for (int j = c; j <= k; j++) {
+                        row[j] = (row[j] + f * pr[j]) % p;
+                    }
                 }
             }
-            system.addRow(row, res[0].negate(), null);
+            int[] pivots = java.util.stream.IntStream.range(0, k).filter(c -> piv[c] != null).toArray();
+            int cmp = bestPivots == null ? -1 : comparePivots(pivots, bestPivots);
+            if (cmp > 0) {
+                continue; // an unlucky prime
+            }
+            if (cmp < 0) {
+                bestPivots = pivots;
+                modulus = BigInteger.ONE;
+                crt = new BigInteger[pivots.length][k + 1];
+                for (BigInteger[] r : crt) {
+                    Arrays.fill(r, BigInteger.ZERO);
+                }
+                primes = 0;
+                nextTry = 1;
+            }
+            BigInteger bp = BigInteger.valueOf(p);
+            BigInteger mInv = modulus.mod(bp).modInverse(bp);
+            for (int i = 0; i < pivots.length; i++) {
+                long[] row = piv[pivots[i]];
+                for (int j = 0; j <= k; j++) {
+                    BigInteger x = crt[i][j];
+                    long diff = Math.floorMod(row[j] - x.mod(bp).longValue(), p);
+                    if (diff != 0) {
+                        crt[i][j] = x.add(modulus.multiply(BigInteger.valueOf(diff).multiply(mInv).mod(bp)));
+                    }
+                }
+            }
+            modulus = modulus.multiply(bp);
+            primes++;
+            if (primes < nextTry) {
+                continue;
+            }
+            nextTry = primes * 2;
+            ParameterValues candidate = candidate(k, bestPivots, crt, modulus);
+            if (candidate != null && satisfiesAll(candidate, residual)) {
+                return candidate;
+            }
         }
-        LinearSystem.Solution solved = system.solve();
-        if (solved instanceof LinearSystem.Inconsistent) {
-            return null;
+        return null;
+    }
+
+    /** The rows modulo p as [parameters 1..k | right side], or null when a denominator vanishes modulo p. */
+    private static long[][] reduce(int k, List<Rational[]> rows, long p) {
+        BigInteger bp = BigInteger.valueOf(p);
+        long[][] out = new long[rows.size()][];
+        for (int r = 0; r < rows.size(); r++) {
+            Rational[] res = rows.get(r);
+            long[] row = new long[k + 1];
+            for (int q = 0; q <= k; q++) {
+                if (!res[q].isZero()) {
+                    long den = res[q].denominator().mod(bp).longValue();
+                    if (den == 0) {
+                        return null;
+                    }
+                    long num = res[q].numerator().mod(bp).longValue();
+                    long v = num * inverseModulo(den, p) % p;
+                    // the right side of sum res_q p_q = -res_0
+                    row[q == 0 ? k : q - 1] = q == 0 ? (p - v) % p : v;
+                }
+            }
+            out[r] = row;
+        }
+        return out;
+    }
+
+    /** Higher rank first, then the lexicographically smaller pivot columns. Negative: a better than b. */
+    private static int comparePivots(int[] a, int[] b) {
+        if (a.length != b.length) {
+            return a.length > b.length ? -1 : 1;
+        }
+        return Arrays.compare(a, b);
+    }
+
+    /** The parameter values whose RREF entries reconstruct from the CRT values; null if one does not. */
+    private static ParameterValues candidate(int k, int[] pivots, BigInteger[][] crt, BigInteger modulus) {
+        boolean[] isPivot = new boolean[k];
+        for (int c : pivots) {
+            isPivot[c] = true;
         }
         List<Integer> freeQ = new ArrayList<>();
+        for (int c = 0; c < k; c++) {
+            if (!isPivot[c]) {
+                freeQ.add(c + 1);
+            }
+        }
         Rational[][] paramVal = new Rational[k + 1][];
-        if (solved instanceof LinearSystem.Unique u) {
-            for (int q = 1; q <= k; q++) {
-                paramVal[q] = new Rational[] {u.values().get(q - 1)};
+        for (int q = 1; q <= k; q++) {
+            paramVal[q] = zeros(freeQ.size() + 1);
+        }
+        for (int i = 0; i < freeQ.size(); i++) {
+            paramVal[freeQ.get(i)][i + 1] = Rational.ONE;
+        }
+        BigInteger bound = modulus.shiftRight(1).sqrt();
+        for (int i = 0; i < pivots.length; i++) {
+            int q = pivots[i] + 1;
+            Rational rhs = rationalReconstruction(crt[i][k], modulus, bound);
+            if (rhs == null) {
+                return null;
             }
-        } else {
-            LinearSystem.Family fam = (LinearSystem.Family) solved;
-            for (int f : fam.freeColumns()) {
-                freeQ.add(f + 1);
-            }
-            for (int q = 1; q <= k; q++) {
-                Rational[] v = zeros(freeQ.size() + 1);
-                v[0] = fam.particular().get(q - 1);
-                for (int i = 0; i < freeQ.size(); i++) {
-                    v[i + 1] = fam.nullBasis().get(i).get(q - 1);
+            paramVal[q][0] = rhs;
+            for (int f = 0; f < freeQ.size(); f++) {
+                int col = freeQ.get(f) - 1;
+                if (col < pivots[i]) {
+                    continue;
                 }
-                paramVal[q] = v;
+                Rational e = rationalReconstruction(crt[i][col], modulus, bound);
+                if (e == null) {
+                    return null;
+                }
+                paramVal[q][f + 1] = e.negate();
             }
         }
         return new ParameterValues(paramVal, freeQ);
+    }
+
+    /** a/b with a = b x mod m, |a|, b <= bound (Wang's algorithm, common practice); null if none. */
+    static Rational rationalReconstruction(BigInteger x, BigInteger m, BigInteger bound) {
+        BigInteger r0 = m;
+        BigInteger r1 = x.mod(m);
+        BigInteger t0 = BigInteger.ZERO;
+        BigInteger t1 = BigInteger.ONE;
+        while (r1.compareTo(bound) > 0) {
+            BigInteger[] qr = r0.divideAndRemainder(r1);
+            r0 = r1;
+            r1 = qr[1];
+            BigInteger t = t0.subtract(qr[0].multiply(t1));
+            t0 = t1;
+            t1 = t;
+        }
+        if (t1.signum() == 0 || t1.abs().compareTo(bound) > 0 || !r1.gcd(t1).equals(BigInteger.ONE)) {
+            return null;
+        }
+        return Rational.of(r1, t1);
+    }
+
+    /** The largest prime below n (n small enough for a long). */
+    private static long previousPrime(long n) {
+        long c = n;
+        while (!BigInteger.valueOf(c).isProbablePrime(40)) {
+            c--;
+        }
+        return c;
     }
 
     /** Exact Gauss-Jordan on the rows (lowest-column pivots); null when they are inconsistent. */
