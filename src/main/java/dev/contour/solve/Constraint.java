@@ -89,7 +89,8 @@ public final class Constraint {
 
     /** A constraint on an expression linear in the named unknowns. */
     public static Constraint on(Expression target, List<String> unknowns, Condition condition, Span span, String label) {
-        return new Constraint(split(List.of(target), unknowns, extraVariables(condition)), condition, span, label);
+        return new Constraint(split(List.of(target), unknowns, extraVariables(condition), !(condition instanceof Vanishes)),
+                condition, span, label);
     }
 
     /**
@@ -111,7 +112,7 @@ public final class Constraint {
         Map<Integer, Expression> pieces = pieceExpressions(target, unknowns);
         Map<Integer, Expression> diff = new LinkedHashMap<>();
         pieces.forEach((col, e) -> diff.put(col, e.subtract(map.apply(e))));
-        return new Constraint(fromExpressions(diff, Set.of()), new Vanishes(), span, label);
+        return new Constraint(fromExpressions(diff, Set.of(), false), new Vanishes(), span, label);
     }
 
     /** A constraint on pieces produced by a source (the large-ansatz path). */
@@ -133,12 +134,12 @@ public final class Constraint {
         return out;
     }
 
-    private static PieceSource split(List<Expression> targets, List<String> unknowns, Set<String> extra) {
+    private static PieceSource split(List<Expression> targets, List<String> unknowns, Set<String> extra, boolean split) {
         Map<Integer, Expression> pieces = new LinkedHashMap<>();
         for (Expression t : targets) {
             pieceExpressions(t, unknowns).forEach((c, e) -> pieces.merge(c, e, Expression::add));
         }
-        return fromExpressions(pieces, extra);
+        return fromExpressions(pieces, extra, split);
     }
 
     /** Splits an expression linear in the unknowns: column to coefficient expression (-1: the rest). */
@@ -169,13 +170,14 @@ public final class Constraint {
         return out;
     }
 
-    private static PieceSource fromExpressions(Map<Integer, Expression> pieces, Set<String> extra) {
+    /** Pieces of the expressions; numerators are split into linear factors when splitNumerators (see Piece.of). */
+    private static PieceSource fromExpressions(Map<Integer, Expression> pieces, Set<String> extra, boolean splitNumerators) {
         TreeSet<String> vars = new TreeSet<>(extra);
         pieces.values().forEach(e -> vars.addAll(e.innerVariables()));
         List<String> varList = List.copyOf(vars);
         List<Integer> cols = new ArrayList<>(pieces.keySet());
         List<Expression> exprs = new ArrayList<>(pieces.values());
-        IntFunction<Piece> make = i -> Piece.of(cols.get(i), exprs.get(i).terms(), varList);
+        IntFunction<Piece> make = i -> Piece.of(cols.get(i), exprs.get(i).terms(), varList, splitNumerators);
         return new PieceSource() {
             @Override
             public List<String> variables() {

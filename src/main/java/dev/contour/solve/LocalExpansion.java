@@ -30,8 +30,12 @@ final class LocalExpansion {
     private final LinearForm[] slope;
     private final boolean[] ray;
     private final boolean anyRay;
+    /** The eliminated variable of a line expansion (-1 for rays). */
+    private final int pivot;
 
-    private LocalExpansion(List<String> from, List<String> to, LinearForm[] base, LinearForm[] slope, boolean[] ray) {
+    private LocalExpansion(List<String> from, List<String> to, LinearForm[] base, LinearForm[] slope, boolean[] ray,
+                           int pivot) {
+        this.pivot = pivot;
         this.from = from;
         this.to = to;
         this.base = base;
@@ -74,7 +78,7 @@ final class LocalExpansion {
                 slope[i] = LinearForm.constant(Rational.ZERO, n - 1);
             }
         }
-        return new LocalExpansion(vars, to, base, slope, new boolean[n]);
+        return new LocalExpansion(vars, to, base, slope, new boolean[n], p);
     }
 
     /**
@@ -98,7 +102,7 @@ final class LocalExpansion {
             slope[i] = LinearForm.constant(Rational.ZERO, n - 1);
             base[i] = i == last ? LinearForm.constant(Rational.ONE, n - 1) : LinearForm.variable(j++, n - 1);
         }
-        return new LocalExpansion(vars, to, base, slope, mask.clone());
+        return new LocalExpansion(vars, to, base, slope, mask.clone(), -1);
     }
 
     /** Hands each coefficient of h^q, qlo <= q <= qhi, to out (as factored terms over the new space). */
@@ -132,7 +136,14 @@ final class LocalExpansion {
                 nu += e;
             }
         }
-        Map<Integer, Polynomial> cof = t.cofactor == null ? null : cofactorSeries(t.cofactor);
+        Map<Integer, Polynomial> cof = null;
+        if (t.cofactor != null) {
+            // along a line only the orders up to qhi - nu can contribute: a short Taylor expansion
+            cof = anyRay ? cofactorSeries(t.cofactor) : lineCofactorSeries(t.cofactor, qhi - nu);
+            if (cof.isEmpty()) {
+                return;
+            }
+        }
         int cofLow = 0;
         if (cof != null) {
             cofLow = cof.keySet().stream().mapToInt(Integer::intValue).min().orElse(0);
@@ -235,6 +246,38 @@ final class LocalExpansion {
             s.add(new ArrayList<>());
         }
         return s;
+    }
+
+    /**
+     * The Taylor coefficients of the cofactor in h along the line (the pivot variable replaced by
+     * its value on the line plus h, the others unchanged), from the lowest non-zero order up to
+     * order limit; empty when every order up to limit vanishes.
+     */
+    private Map<Integer, Polynomial> lineCofactorSeries(Polynomial cofactor, int limit) {
+        Map<Integer, Polynomial> out = new HashMap<>();
+        if (limit < 0) {
+            return out;
+        }
+        String x = from.get(pivot);
+        Polynomial b = base[pivot].toPolynomial(to);
+        int d = cofactor.degree(x);
+        Polynomial[] c = new Polynomial[d + 1];
+        for (int m = 0; m <= d; m++) {
+            c[m] = cofactor.coefficient(x, m);
+        }
+        boolean bZero = b.isZero();
+        for (int j = 0; j <= Math.min(d, limit); j++) {
+            // after this pass c[j] is the j-th Taylor coefficient at x = b (repeated synthetic division)
+            if (!bZero) {
+                for (int m = d - 1; m >= j; m--) {
+                    c[m] = c[m].add(c[m + 1].multiply(b));
+                }
+            }
+            if (!c[j].isZero()) {
+                out.put(j, c[j]);
+            }
+        }
+        return out;
     }
 
     private Map<Integer, Polynomial> cofactorSeries(Polynomial cofactor) {

@@ -30,16 +30,54 @@ public final class Piece {
 
     /** A piece from collected monomials and their rational-function coefficients over vars. */
     static Piece of(int column, Map<Monomial, RationalFunction> terms, List<String> vars) {
+        return of(column, terms, vars, true);
+    }
+
+    /**
+     * A piece whose numerators are split into linear factors only when asked: the vanishing
+     * condition reads every numerator through its Taylor and ray expansions, which take any
+     * polynomial, while the search for linear factors of a large numerator that has none costs more
+     * than all of that expansion (residue conditions do use the factors).
+     */
+    static Piece of(int column, Map<Monomial, RationalFunction> terms, List<String> vars, boolean splitNumerators) {
         List<Monomial> ms = new ArrayList<>();
         List<FactoredTerm> ts = new ArrayList<>();
         terms.forEach((m, f) -> {
-            FactoredTerm t = factored(f, vars);
+            FactoredTerm t = splitNumerators ? factored(f, vars) : withWholeNumerator(f, vars);
             if (t != null) {
                 ms.add(m);
                 ts.add(t);
             }
         });
         return new Piece(column, ms, ts);
+    }
+
+    /** The rational function as one factored term whose cofactor is the whole numerator. */
+    static FactoredTerm withWholeNumerator(RationalFunction f, List<String> vars) {
+        if (f.isZero()) {
+            return null;
+        }
+        List<LinearForm> forms = new ArrayList<>();
+        List<Integer> exps = new ArrayList<>();
+        denominatorForms(f, vars, forms, exps);
+        Polynomial num = f.numerator();
+        for (String v : num.variables()) {
+            if (!vars.contains(v)) {
+                throw new ContourException("variable " + v + " is not among " + vars);
+            }
+        }
+        return num.isConstant() ? FactoredTerm.of(num.constantValue(), forms, exps, null) : FactoredTerm.of(Rational.ONE, forms, exps, num);
+    }
+
+    private static void denominatorForms(RationalFunction f, List<String> vars, List<LinearForm> forms, List<Integer> exps) {
+        for (LinearFactors.Factor d : f.denominatorFactors()) {
+            if (d.base().totalDegree() != 1) {
+                throw new ContourException("the denominator factor " + d.base()
+                        + " is not linear: pole and residue constraints need denominators that split into linear factors");
+            }
+            forms.add(LinearForm.of(d.base(), vars));
+            exps.add(-d.multiplicity());
+        }
     }
 
     /** The rational function as one factored term; its denominator must split into linear factors. */
@@ -49,14 +87,7 @@ public final class Piece {
         }
         List<LinearForm> forms = new ArrayList<>();
         List<Integer> exps = new ArrayList<>();
-        for (LinearFactors.Factor d : f.denominatorFactors()) {
-            if (d.base().totalDegree() != 1) {
-                throw new ContourException("the denominator factor " + d.base()
-                        + " is not linear: pole and residue constraints need denominators that split into linear factors");
-            }
-            forms.add(LinearForm.of(d.base(), vars));
-            exps.add(-d.multiplicity());
-        }
+        denominatorForms(f, vars, forms, exps);
         LinearFactors.Split num = LinearFactors.split(f.numerator());
         for (LinearFactors.Factor n : num.factors()) {
             forms.add(LinearForm.of(n.base(), vars));

@@ -68,6 +68,14 @@ final class TermConditions {
             sink.add(key, t.coefficient);
             return;
         }
+        if (vars.size() == 1 && UnivariateConditions.vanish(vars.get(0), t, key, sink)) {
+            return;
+        }
+        vanishByExpansion(vars, t, key, sink);
+    }
+
+    /** The general path of {@link #vanish} (also the reference its one-variable fast path is tested against). */
+    static void vanishByExpansion(List<String> vars, FactoredTerm t, Object key, Sink sink) {
         for (int i = 0; i < t.size(); i++) {
             if (t.exps[i] < 0) {
                 LinearForm line = t.forms[i];
