@@ -20,6 +20,8 @@ import java.nio.charset.StandardCharsets;
  * Ward equations derived from epsilon = 2 (backgrounds/ward_from_eps.ctr) and solved with crossing,
  * written as a user writes it. One row per k: unknowns, equations, solution dimension, the time to
  * build the ansatz and derive the equations, the time to solve, and the peak heap of the run.
+ * CONTOUR_ADS7_K chooses the k (default 2..6); each statement may take CONTOUR_ADS7_BUDGET seconds
+ * (default 1800); a k that runs past it prints one "stopped" line and the next k runs.
  */
 public final class Ads7Bench {
     private Ads7Bench() { }
@@ -29,7 +31,22 @@ public final class Ads7Bench {
         r.register(BenchRegistry.Workload.report("ads7",
                 "AdS7xS4 at Delta = 2k, k = 2..6: derive the Ward equations from epsilon = 2 and solve the ansatz with crossing;"
                         + " unknowns, equations, dimension, derive and solve times, peak heap",
-                out -> run(out, 2, 3, 4, 5, 6)));
+                out -> run(out, sizes())));
+    }
+
+    /** k = 2..6, or the list in CONTOUR_ADS7_K ("4" or "2,3,4"). */
+    private static int[] sizes() {
+        String env = System.getenv("CONTOUR_ADS7_K");
+        if (env == null || env.isBlank()) {
+            return new int[] {2, 3, 4, 5, 6};
+        }
+        return java.util.Arrays.stream(env.split(",")).map(String::trim).mapToInt(Integer::parseInt).toArray();
+    }
+
+    /** The statement budget of the solve: CONTOUR_ADS7_BUDGET seconds (0: no limit), default 30 minutes. */
+    private static java.time.Duration budget() {
+        String env = System.getenv("CONTOUR_ADS7_BUDGET");
+        return java.time.Duration.ofSeconds(env == null || env.isBlank() ? 1800 : Long.parseLong(env.trim()));
     }
 
     /** The ansatz and the derived equations for k. */
@@ -52,11 +69,22 @@ public final class Ads7Bench {
         for (int k : ks) {
             resetPeaks();
             PrintStream sink = new PrintStream(OutputStream.nullOutputStream(), true, StandardCharsets.UTF_8);
-            Interpreter interpreter = new Interpreter(InterpreterOptions.to(sink), BuiltinRegistry.standard());
+            InterpreterOptions options = InterpreterOptions.to(sink).withLimits(dev.contour.eval.EvaluationLimits.DEFAULT
+                    .withStatementBudget(budget(), dev.contour.eval.EvaluationLimits.defaultMemoryMiB()));
+            Interpreter interpreter = new Interpreter(options, BuiltinRegistry.standard());
             long t0 = System.nanoTime();
-            RunResult derived = interpreter.run(derive(k), "ads7-bench-k" + k + ".ctr");
-            long t1 = System.nanoTime();
-            RunResult solved = interpreter.run(solve(), "ads7-bench-k" + k + ".ctr");
+            long t1 = t0;
+            RunResult derived;
+            RunResult solved;
+            try {
+                derived = interpreter.run(derive(k), "ads7-bench-k" + k + ".ctr");
+                t1 = System.nanoTime();
+                solved = interpreter.run(solve(), "ads7-bench-k" + k + ".ctr");
+            } catch (dev.contour.ContourException e) {
+                out.printf("%4d   stopped after %.1f s: %s (this workload: CONTOUR_ADS7_BUDGET=SECONDS, 0 for no limit)%n", k,
+                        (System.nanoTime() - t0) / 1e9, e.getMessage());
+                continue;
+            }
             long t2 = System.nanoTime();
             if (!(interpreter.lookup("sol") instanceof SolutionValue sv) || sv.figures() == null || !derived.ok() || !solved.ok()) {
                 throw new IllegalStateException("the ads7 benchmark script did not run for k = " + k);
