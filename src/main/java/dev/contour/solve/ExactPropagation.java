@@ -27,9 +27,38 @@ final class ExactPropagation {
 
     private ExactPropagation() { }
 
+    /**
+     * The order of propagation, which depends only on where the rows have entries, not on their
+     * values: steps[i] &gt;= 0 is a row that fixes its one undetermined column, steps[i] &lt; 0 the
+     * column -1 - steps[i] made a parameter; used marks the rows that fixed a column, params lists
+     * the parameter columns in order (parameter q is params[q - 1]).
+     */
+    record Plan(int[] steps, boolean[] used, int[] params) {
+        boolean allUsed() {
+            for (boolean u : used) {
+                if (!u) {
+                    return false;
+                }
+            }
+            return true;
+        }
+    }
+
     static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress) {
-        Rational[][] val = new Rational[columns][];
+        Plan plan = plan(rows, columns, progress);
+        if (!plan.allUsed()) {
+            Outcome modular = ModularPropagation.solve(rows, columns, plan);
+            if (modular != null) {
+                return modular;
+            }
+        }
+        return exact(rows, columns, plan);
+    }
+
+    static Plan plan(List<IntegerRow> rows, int columns, SolveProgress progress) {
+        boolean[] det = new boolean[columns];
         List<Integer> params = new ArrayList<>();
+        int[] steps = new int[columns];
         int[][] byCol = rowsByColumn(rows, columns);
         int[] open = new int[rows.size()];
         boolean[] used = new boolean[rows.size()];
@@ -51,9 +80,15 @@ final class ExactPropagation {
                 if (open[r] != 1) {
                     continue;
                 }
-                int c = determine(rows.get(r), val, params.size());
+                int c = -1;
+                for (int col : rows.get(r).cols) {
+                    if (!det[col]) {
+                        c = col;
+                    }
+                }
+                det[c] = true;
                 used[r] = true;
-                known++;
+                steps[known++] = r;
                 progress.determined(known);
                 for (int q : byCol[c]) {
                     if (--open[q] == 1) {
@@ -65,53 +100,60 @@ final class ExactPropagation {
                 break;
             }
             Cancellation.check();
-            int c = leastConstrained(rows, open, val, byCol);
+            int c = leastConstrained(rows, open, det, byCol);
             params.add(c);
-            Rational[] v = zeros(params.size() + 1);
-            v[params.size()] = Rational.ONE;
-            val[c] = v;
-            known++;
+            det[c] = true;
+            steps[known++] = -1 - c;
             for (int q : byCol[c]) {
                 if (--open[q] == 1) {
                     stack[top++] = q;
                 }
             }
         }
-        int k = params.size();
-        for (int c = 0; c < columns; c++) {
-            if (val[c].length < k + 1) {
-                Rational[] v = zeros(k + 1);
-                System.arraycopy(val[c], 0, v, 0, val[c].length);
-                val[c] = v;
+        return new Plan(steps, used, params.stream().mapToInt(Integer::intValue).toArray());
+    }
+
+    /** The plan carried out in exact arithmetic, then the parameters reduced by exact elimination. */
+    static Outcome exact(List<IntegerRow> rows, int columns, Plan plan) {
+        Affine[] val = new Affine[columns];
+        int k = 0;
+        for (int i = 0; i < plan.steps().length; i++) {
+            if ((i & 1023) == 0) {
+                Cancellation.check();
+            }
+            int step = plan.steps()[i];
+            if (step < 0) {
+                val[-1 - step] = Affine.unit(++k);
+            } else {
+                determine(rows.get(step), val);
             }
         }
-        List<Rational[]> residual = residuals(rows, used, val, k);
+        List<Integer> params = Arrays.stream(plan.params()).boxed().toList();
+        List<Affine> residual = residuals(rows, plan.used(), val);
         if (residual.isEmpty()) {
-            return new Outcome(val, params.stream().mapToInt(Integer::intValue).toArray(), true);
+            return new Outcome(dense(val, k + 1), plan.params(), true);
         }
-        return reduceParameters(val, params, residual);
+        Expressed exact = eliminateAndExpress(val, params, residual);
+        return exact != null ? exact.outcome() : new Outcome(null, null, false);
     }
 
     /** Solves row for its one undetermined column; returns that column. */
-    private static int determine(IntegerRow row, Rational[][] val, int k) {
+    private static int determine(IntegerRow row, Affine[] val) {
         int at = -1;
-        Rational[] acc = zeros(k + 1);
-        acc[0] = Rational.of(row.rhs);
+        Affine[] known = new Affine[row.length()];
+        Rational[] coef = new Rational[row.length()];
+        int n = 0;
         for (int i = 0; i < row.length(); i++) {
-            Rational[] v = val[row.cols[i]];
+            Affine v = val[row.cols[i]];
             if (v == null) {
                 at = i;
             } else {
-                addScaled(acc, v, row.rational(i).negate());
+                known[n] = v;
+                coef[n++] = row.rational(i).negate();
             }
         }
         Rational inv = row.rational(at).inverse();
-        for (int j = 0; j <= k; j++) {
-            if (!acc[j].isZero()) {
-                acc[j] = acc[j].multiply(inv);
-            }
-        }
-        val[row.cols[at]] = acc;
+        val[row.cols[at]] = Affine.combine(known, coef, n, Rational.of(row.rhs)).times(inv);
         return row.cols[at];
     }
 
@@ -120,12 +162,12 @@ final class ExactPropagation {
      * (so that propagation resumes), occurring in the fewest equations; any undetermined column if
      * there is no such equation.
      */
-    private static int leastConstrained(List<IntegerRow> rows, int[] open, Rational[][] val, int[][] byCol) {
+    private static int leastConstrained(List<IntegerRow> rows, int[] open, boolean[] det, int[][] byCol) {
         int best = -1;
         for (int r = 0; r < rows.size(); r++) {
             if (open[r] == 2) {
                 for (int c : rows.get(r).cols) {
-                    if (val[c] == null && (best < 0 || byCol[c].length < byCol[best].length
+                    if (!det[c] && (best < 0 || byCol[c].length < byCol[best].length
                             || byCol[c].length == byCol[best].length && c < best)) {
                         best = c;
                     }
@@ -135,8 +177,8 @@ final class ExactPropagation {
         if (best >= 0) {
             return best;
         }
-        for (int c = 0; c < val.length; c++) {
-            if (val[c] == null && (best < 0 || byCol[c].length < byCol[best].length)) {
+        for (int c = 0; c < det.length; c++) {
+            if (!det[c] && (best < 0 || byCol[c].length < byCol[best].length)) {
                 best = c;
             }
         }
@@ -144,67 +186,49 @@ final class ExactPropagation {
     }
 
     /**
-     * sum a_j x_j - b for every equation not used in propagation, as affine vectors over the
-     * parameters; zero vectors dropped. Each component is scaled to integers once, so this is
-     * integer multiply-adds, in parallel over equations.
+     * sum a_j x_j - b for every equation not used in propagation, as affine functions of the
+     * parameters; zero ones dropped. The values are sparse (a parameter reaches few unknowns), so
+     * each row costs the sizes of its few values, in parallel over equations.
      */
-    private static List<Rational[]> residuals(List<IntegerRow> rows, boolean[] used, Rational[][] val, int k) {
-        BigInteger[] scale = new BigInteger[k + 1];
-        BigInteger[][] x = new BigInteger[k + 1][];
-        for (int j = 0; j <= k; j++) {
-            BigInteger lcm = BigInteger.ONE;
-            for (Rational[] v : val) {
-                BigInteger d = v[j].denominator();
-                if (!d.equals(BigInteger.ONE) && lcm.mod(d).signum() != 0) {
-                    lcm = lcm.divide(lcm.gcd(d)).multiply(d);
-                }
-            }
-            scale[j] = lcm;
-            x[j] = new BigInteger[val.length];
-            for (int c = 0; c < val.length; c++) {
-                Rational v = val[c][j];
-                x[j][c] = v.isZero() ? BigInteger.ZERO : v.numerator().multiply(lcm.divide(v.denominator()));
-            }
-        }
+    private static List<Affine> residuals(List<IntegerRow> rows, boolean[] used, Affine[] val) {
         Cancellation.Token stop = Cancellation.current();
         return IntStream.range(0, rows.size()).parallel().filter(r -> !used[r]).mapToObj(r -> {
             stop.check();
-            IntegerRow row = rows.get(r);
-            Rational[] res = null;
-            for (int j = 0; j <= k; j++) {
-                BigInteger sum = j == 0 ? row.rhs.multiply(scale[0]).negate() : BigInteger.ZERO;
-                for (int i = 0; i < row.length(); i++) {
-                    BigInteger xc = x[j][row.cols[i]];
-                    if (xc.signum() != 0) {
-                        sum = sum.add(row.small != null ? xc.multiply(BigInteger.valueOf(row.small[i])) : xc.multiply(row.big[i]));
-                    }
-                }
-                if (sum.signum() != 0) {
-                    if (res == null) {
-                        res = zeros(k + 1);
-                    }
-                    res[j] = Rational.of(sum, scale[j]);
-                }
-            }
-            return res;
+            Affine res = apply(rows.get(r), val);
+            return res.isZero() ? null : res;
         }).filter(v -> v != null).toList();
+    }
+
+    /** sum a_j x_j - b of one equation, the x_j affine functions over the same coordinates. */
+    private static Affine apply(IntegerRow row, Affine[] x) {
+        Affine[] vs = new Affine[row.length()];
+        Rational[] coef = new Rational[row.length()];
+        for (int i = 0; i < row.length(); i++) {
+            vs[i] = x[row.cols[i]];
+            coef[i] = row.rational(i);
+        }
+        return Affine.combine(vs, coef, vs.length, Rational.of(row.rhs).negate());
+    }
+
+    /** Every value as a sparse affine function of the free parameters (the columns in free). */
+    private record Expressed(Affine[] values, int[] free) {
+        Outcome outcome() {
+            return new Outcome(dense(values, free.length + 1), free, true);
+        }
     }
 
     /**
      * Solves the residual equations res_0 + sum_q res_q p_q = 0 for the parameters by exact
-     * elimination, then rewrites every value in the parameters that stay free.
+     * Gauss-Jordan elimination of the rows in order (lowest parameter as pivot), then rewrites every
+     * value in the parameters that stay free; null when the equations contradict each other.
      */
-    private static Outcome reduceParameters(Rational[][] val, List<Integer> params, List<Rational[]> residual) {
+    private static Expressed eliminateAndExpress(Affine[] val, List<Integer> params, List<Affine> residual) {
         int k = params.size();
         List<TreeMap<Integer, Rational>> pivRows = new ArrayList<>();
         List<Integer> pivCols = new ArrayList<>();
-        for (Rational[] res : residual) {
-            TreeMap<Integer, Rational> row = new TreeMap<>();
-            for (int q = 0; q <= k; q++) {
-                if (!res[q].isZero()) {
-                    row.put(q, res[q]);
-                }
-            }
+        for (Affine res : residual) {
+            Cancellation.check();
+            TreeMap<Integer, Rational> row = res.toMap();
             for (int i = 0; i < pivCols.size(); i++) {
                 Rational a = row.get(pivCols.get(i));
                 if (a != null) {
@@ -214,7 +238,7 @@ final class ExactPropagation {
             Integer lead = row.keySet().stream().filter(q -> q > 0).findFirst().orElse(null);
             if (lead == null) {
                 if (!row.isEmpty()) {
-                    return new Outcome(null, null, false);
+                    return null;
                 }
                 continue;
             }
@@ -230,43 +254,57 @@ final class ExactPropagation {
             pivCols.add(lead);
         }
         // parameter q (1-based) as affine in the free parameters: p_q = -row_0 - sum_{free f} row_f p_f
+        int[] freeIndex = new int[k + 1];
+        Arrays.fill(freeIndex, -1);
+        int[] pivotOf = new int[k + 1];
+        Arrays.fill(pivotOf, -1);
+        for (int i = 0; i < pivCols.size(); i++) {
+            pivotOf[pivCols.get(i)] = i;
+        }
         List<Integer> freeQ = new ArrayList<>();
         for (int q = 1; q <= k; q++) {
-            if (!pivCols.contains(q)) {
+            if (pivotOf[q] < 0) {
                 freeQ.add(q);
+                freeIndex[q] = freeQ.size();
             }
         }
-        Rational[][] paramVal = new Rational[k + 1][];
+        Affine[] paramVal = new Affine[k + 1];
         for (int q = 1; q <= k; q++) {
-            Rational[] v = zeros(freeQ.size() + 1);
-            int i = pivCols.indexOf(q);
-            if (i < 0) {
-                v[freeQ.indexOf(q) + 1] = Rational.ONE;
+            if (pivotOf[q] < 0) {
+                paramVal[q] = Affine.unit(freeIndex[q]);
             } else {
-                for (var e : pivRows.get(i).entrySet()) {
+                TreeMap<Integer, Rational> v = new TreeMap<>();
+                for (var e : pivRows.get(pivotOf[q]).entrySet()) {
                     int f = e.getKey();
                     if (f == 0) {
-                        v[0] = e.getValue().negate();
+                        v.put(0, e.getValue().negate());
                     } else if (f != q) {
-                        v[freeQ.indexOf(f) + 1] = e.getValue().negate();
+                        v.put(freeIndex[f], e.getValue().negate());
                     }
                 }
+                paramVal[q] = Affine.of(v);
             }
-            paramVal[q] = v;
         }
-        Rational[][] out = new Rational[val.length][];
+        Affine[] out = new Affine[val.length];
         for (int c = 0; c < val.length; c++) {
-            Rational[] v = zeros(freeQ.size() + 1);
-            v[0] = val[c][0];
-            for (int q = 1; q <= k; q++) {
-                if (!val[c][q].isZero()) {
-                    addScaled(v, paramVal[q], val[c][q]);
-                }
+            if ((c & 255) == 0) {
+                Cancellation.check();
             }
-            out[c] = v;
+            out[c] = val[c].substitute(paramVal);
         }
         int[] free = freeQ.stream().mapToInt(q -> params.get(q - 1)).toArray();
-        return new Outcome(out, free, true);
+        return new Expressed(out, free);
+    }
+
+    /** Whether every equation holds for the constant part and for each free direction of the values. */
+    static boolean holds(List<IntegerRow> rows, Affine[] x) {
+        Cancellation.Token stop = Cancellation.current();
+        return IntStream.range(0, rows.size()).parallel().allMatch(r -> {
+            if ((r & 255) == 0) {
+                stop.check();
+            }
+            return apply(rows.get(r), x).isZero();
+        });
     }
 
     private static void axpy(TreeMap<Integer, Rational> row, TreeMap<Integer, Rational> piv, Rational f) {
@@ -300,17 +338,146 @@ final class ExactPropagation {
         return byCol;
     }
 
-    private static void addScaled(Rational[] acc, Rational[] v, Rational f) {
-        for (int j = 0; j < v.length; j++) {
-            if (!v[j].isZero()) {
-                acc[j] = acc[j].add(v[j].multiply(f));
+    static Rational[][] dense(Affine[] val, int width) {
+        Rational[][] out = new Rational[val.length][];
+        for (int c = 0; c < val.length; c++) {
+            Rational[] v = new Rational[width];
+            Arrays.fill(v, Rational.ZERO);
+            Affine a = val[c];
+            for (int i = 0; i < a.idx.length; i++) {
+                v[a.idx[i]] = a.val[i];
             }
+            out[c] = v;
         }
+        return out;
     }
 
-    private static Rational[] zeros(int n) {
-        Rational[] z = new Rational[n];
-        Arrays.fill(z, Rational.ZERO);
-        return z;
+    /**
+     * A sparse affine function of the parameters: coefficient val[i] at coordinate idx[i] (0 the
+     * constant, q the q-th parameter), idx increasing, no zero coefficients. Parameters reach few
+     * unknowns each, so dense vectors of length k + 1 would be mostly zeros.
+     */
+    static final class Affine {
+        private static final Affine ZERO = new Affine(new int[0], new Rational[0]);
+        final int[] idx;
+        final Rational[] val;
+
+        Affine(int[] idx, Rational[] val) {
+            this.idx = idx;
+            this.val = val;
+        }
+
+        static Affine unit(int q) {
+            return new Affine(new int[] {q}, new Rational[] {Rational.ONE});
+        }
+
+        static Affine of(TreeMap<Integer, Rational> entries) {
+            int[] idx = new int[entries.size()];
+            Rational[] val = new Rational[entries.size()];
+            int n = 0;
+            for (var e : entries.entrySet()) {
+                if (!e.getValue().isZero()) {
+                    idx[n] = e.getKey();
+                    val[n++] = e.getValue();
+                }
+            }
+            return new Affine(Arrays.copyOf(idx, n), Arrays.copyOf(val, n));
+        }
+
+        boolean isZero() {
+            return idx.length == 0;
+        }
+
+        TreeMap<Integer, Rational> toMap() {
+            TreeMap<Integer, Rational> m = new TreeMap<>();
+            for (int i = 0; i < idx.length; i++) {
+                m.put(idx[i], val[i]);
+            }
+            return m;
+        }
+
+        Affine times(Rational f) {
+            if (f.isOne()) {
+                return this;
+            }
+            Rational[] v = new Rational[val.length];
+            for (int i = 0; i < v.length; i++) {
+                v[i] = val[i].multiply(f);
+            }
+            return new Affine(idx, v);
+        }
+
+        /** constant + sum_i coef[i] * vs[i] over the first n terms. */
+        static Affine combine(Affine[] vs, Rational[] coef, int n, Rational constant) {
+            int total = constant.isZero() ? 0 : 1;
+            for (int i = 0; i < n; i++) {
+                total += vs[i].idx.length;
+            }
+            long[] keys = new long[total];
+            Rational[] terms = new Rational[total];
+            int m = 0;
+            if (!constant.isZero()) {
+                keys[m] = m;
+                terms[m++] = constant;
+            }
+            for (int i = 0; i < n; i++) {
+                Affine v = vs[i];
+                for (int j = 0; j < v.idx.length; j++) {
+                    keys[m] = ((long) v.idx[j] << 32) | m;
+                    terms[m++] = v.val[j].multiply(coef[i]);
+                }
+            }
+            return collect(keys, terms);
+        }
+
+        /** This function with parameter q replaced by sub[q] (an affine function of new coordinates). */
+        Affine substitute(Affine[] sub) {
+            int total = 0;
+            for (int i = 0; i < idx.length; i++) {
+                total += idx[i] == 0 ? 1 : sub[idx[i]].idx.length;
+            }
+            long[] keys = new long[total];
+            Rational[] terms = new Rational[total];
+            int m = 0;
+            for (int i = 0; i < idx.length; i++) {
+                if (idx[i] == 0) {
+                    keys[m] = m;
+                    terms[m++] = val[i];
+                    continue;
+                }
+                Affine s = sub[idx[i]];
+                for (int j = 0; j < s.idx.length; j++) {
+                    keys[m] = ((long) s.idx[j] << 32) | m;
+                    terms[m++] = s.val[j].multiply(val[i]);
+                }
+            }
+            return collect(keys, terms);
+        }
+
+        /** Sums the terms by coordinate (the high half of each key; the low half is the term's position). */
+        private static Affine collect(long[] keys, Rational[] terms) {
+            if (keys.length == 0) {
+                return ZERO;
+            }
+            Arrays.sort(keys);
+            int[] idx = new int[keys.length];
+            Rational[] val = new Rational[keys.length];
+            int n = 0;
+            for (int a = 0; a < keys.length; ) {
+                int coordinate = (int) (keys[a] >>> 32);
+                Rational sum = terms[(int) keys[a]];
+                int b = a + 1;
+                while (b < keys.length && (int) (keys[b] >>> 32) == coordinate) {
+                    sum = sum.add(terms[(int) keys[b]]);
+                    b++;
+                }
+                if (!sum.isZero()) {
+                    idx[n] = coordinate;
+                    val[n++] = sum;
+                }
+                a = b;
+            }
+            return n == keys.length ? new Affine(idx, val) : new Affine(Arrays.copyOf(idx, n), Arrays.copyOf(val, n));
+        }
     }
 }
