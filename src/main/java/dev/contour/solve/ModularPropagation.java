@@ -342,8 +342,11 @@ final class ModularPropagation {
             }
             Image im = new Image();
             im.prime = p;
-            // residual equations, reduced to echelon form modulo p (Gauss-Jordan, lowest parameter first)
+            // residual equations, reduced to echelon form modulo p (Gauss-Jordan, lowest parameter first);
+            // each pivot row is dense with the list of its non-zero places, as the rank is small
             long[][] pivotRow = new long[k + 1][];
+            int[][] pivotPlaces = new int[k + 1][];
+            List<Integer> pivotList = new ArrayList<>();
             int rank = 0;
             long[] row = new long[k + 1];
             for (int r = 0; r < rows.size(); r++) {
@@ -370,9 +373,9 @@ final class ModularPropagation {
                     row[res.idx[i]] = res.val[i];
                 }
                 // pivot rows carry no other pivot column, so one pass over the pivots suffices
-                for (int j = 1; j <= k; j++) {
-                    if (pivotRow[j] != null && row[j] != 0) {
-                        subtract(row, pivotRow[j], row[j], p);
+                for (int j : pivotList) {
+                    if (row[j] != 0) {
+                        subtract(row, pivotRow[j], pivotPlaces[j], row[j], p);
                     }
                 }
                 int lead = 0;
@@ -393,12 +396,16 @@ final class ModularPropagation {
                 for (int j = 0; j <= k; j++) {
                     piv[j] = row[j] * inv % p;
                 }
-                for (int j = 1; j <= k; j++) {
-                    if (pivotRow[j] != null && pivotRow[j][lead] != 0) {
-                        subtract(pivotRow[j], piv, pivotRow[j][lead], p);
+                int[] places = places(piv);
+                for (int j : pivotList) {
+                    if (pivotRow[j][lead] != 0) {
+                        subtract(pivotRow[j], piv, places, pivotRow[j][lead], p);
+                        pivotPlaces[j] = places(pivotRow[j]);
                     }
                 }
                 pivotRow[lead] = piv;
+                pivotPlaces[lead] = places;
+                pivotList.add(lead);
                 rank++;
             }
             im.pivots = new int[rank];
@@ -448,14 +455,26 @@ final class ModularPropagation {
             return im;
         }
 
-        /** row -= f * piv, modulo p. */
-        private static void subtract(long[] row, long[] piv, long f, long p) {
+        /** row -= f * piv, modulo p; places lists where piv is not zero. */
+        private static void subtract(long[] row, long[] piv, int[] places, long f, long p) {
             long g = p - f;
-            for (int j = 0; j < row.length; j++) {
-                if (piv[j] != 0) {
-                    row[j] = (row[j] + g * piv[j]) % p;
+            for (int j : places) {
+                row[j] = (row[j] + g * piv[j]) % p;
+            }
+        }
+
+        private static int[] places(long[] v) {
+            int n = 0;
+            for (long x : v) {
+                n += x != 0 ? 1 : 0;
+            }
+            int[] out = new int[n];
+            for (int j = 0, i = 0; j < v.length; j++) {
+                if (v[j] != 0) {
+                    out[i++] = j;
                 }
             }
+            return out;
         }
     }
 
