@@ -2,7 +2,6 @@ package dev.contour.solve;
 
 import dev.contour.Cancellation;
 import dev.contour.algebra.Rational;
-import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -12,8 +11,12 @@ import java.util.stream.IntStream;
 /**
  * Exact solution by propagation: an equation with one undetermined unknown left fixes it; when no
  * such equation remains, the least constrained undetermined unknown becomes a parameter. Every
- * value is kept as an affine function of the parameters. The equations not used for propagation
- * then give a small system in the parameters, solved by exact elimination.
+ * value is kept as a sparse affine function of the parameters. The equations not used for
+ * propagation then give a small system in the parameters, solved by exact elimination.
+ *
+ * <p>The order of propagation ({@link Plan}) depends only on where rows have entries, so
+ * {@link ModularPropagation} first carries it out modulo primes and returns a result only when an
+ * exact check proves it equal to this class's; otherwise the plan is carried out here exactly.
  *
  * <p>Why this works well here: Mellin ansatz systems are lattice-structured recurrences. Along the
  * boundary of the lattice equations have two terms, inside they have four, so after one parameter
