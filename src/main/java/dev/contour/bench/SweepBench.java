@@ -1,7 +1,9 @@
 package dev.contour.bench;
 
 import dev.contour.cli.BenchRegistry;
+import dev.contour.ContourException;
 import dev.contour.eval.BuiltinRegistry;
+import dev.contour.eval.EvaluationLimits;
 import dev.contour.eval.Interpreter;
 import dev.contour.eval.InterpreterOptions;
 import dev.contour.eval.RunResult;
@@ -16,6 +18,7 @@ import java.lang.management.ManagementFactory;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Duration;
 
 /**
  * Benchmark workload "sweep": every AdS5xS5 correlator with 2 <= p4 <= p3 <= p2 <= p1 <= N, even
@@ -26,7 +29,10 @@ import java.nio.file.Path;
  * printed, never asserted; each N runs in a fresh session of this process.
  */
 public final class SweepBench {
-    /** The N the workload runs by default; CONTOUR_SWEEP_N="6,8,10,14" chooses others. */
+    /**
+     * The N the workload runs by default; CONTOUR_SWEEP_N="6,8,10,14" chooses others, and
+     * CONTOUR_SWEEP_BUDGET the time budget of each sweep in seconds (default 7200, 0 for none).
+     */
     private static final int[] DEFAULT_N = {6, 8, 10};
 
     private SweepBench() { }
@@ -64,16 +70,34 @@ public final class SweepBench {
         var os = ManagementFactory.getOperatingSystemMXBean();
         for (int n : sizes) {
             PrintStream sink = new PrintStream(OutputStream.nullOutputStream(), true, StandardCharsets.UTF_8);
-            Interpreter session = new Interpreter(InterpreterOptions.to(sink), BuiltinRegistry.standard());
+            // The whole sweep is one statement (the loop), so the default statement budget of five
+            // minutes would end N >= 14; CONTOUR_SWEEP_BUDGET (seconds, 0 for none) sets it.
+            InterpreterOptions options = InterpreterOptions.to(sink).withLimits(
+                    EvaluationLimits.DEFAULT.withStatementBudget(budget(), EvaluationLimits.defaultMemoryMiB()));
+            Interpreter session = new Interpreter(options, BuiltinRegistry.standard());
             long c0 = processCpu(os);
             long t0 = System.nanoTime();
-            RunResult r = session.run(script(n), "sweep-N" + n + ".ctr");
+            RunResult r;
+            try {
+                r = session.run(script(n), "sweep-N" + n + ".ctr");
+            } catch (ContourException e) {
+                out.printf("%4d   stopped after %.1f s: %s (this workload: CONTOUR_SWEEP_BUDGET=SECONDS, 0 for no limit)%n", n,
+                        (System.nanoTime() - t0) / 1e9, e.getMessage());
+                continue;
+            }
             long t1 = System.nanoTime();
             long c1 = processCpu(os);
             out.printf("%4d %12d %10d %11d %9.2f %9.2f %10d   %d passed, %d failed%n", n, number(session, "correlators"),
                     number(session, "unknowns"), number(session, "equations"), (t1 - t0) / 1e9,
                     c0 < 0 ? Double.NaN : (c1 - c0) / 1e9, peakMebibytes(), r.checksPassed(), r.checksFailed());
         }
+    }
+
+    /** The statement budget of a sweep: CONTOUR_SWEEP_BUDGET seconds (0: no limit), default two hours. */
+    private static Duration budget() {
+        String env = System.getenv("CONTOUR_SWEEP_BUDGET");
+        long seconds = env == null || env.isBlank() ? 7200 : Long.parseLong(env.trim());
+        return Duration.ofSeconds(seconds);
     }
 
     private static long number(Interpreter session, String name) {

@@ -3,7 +3,6 @@ package dev.contour.solve;
 import dev.contour.Cancellation;
 import dev.contour.Parallel;
 import dev.contour.algebra.Rational;
-import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -13,8 +12,12 @@ import java.util.stream.IntStream;
 /**
  * Exact solution by propagation: an equation with one undetermined unknown left fixes it; when no
  * such equation remains, the least constrained undetermined unknown becomes a parameter. Every
- * value is kept as an affine function of the parameters. The equations not used for propagation
- * then give a small system in the parameters, solved by exact elimination.
+ * value is kept as a sparse affine function of the parameters. The equations not used for
+ * propagation then give a small system in the parameters, solved by exact elimination.
+ *
+ * <p>The order of propagation ({@link Plan}) depends only on where rows have entries, so
+ * {@link ModularPropagation} first carries it out modulo primes and returns a result only when an
+ * exact check proves it equal to this class's; otherwise the plan is carried out here exactly.
  *
  * <p>Why this works well here: Mellin ansatz systems are lattice-structured recurrences. Along the
  * boundary of the lattice equations have two terms, inside they have four, so after one parameter
@@ -28,21 +31,38 @@ final class ExactPropagation {
 
     private ExactPropagation() { }
 
-    /** The prime that picks the independent rows of the parameter system (below 2^31, so products fit a long). */
-    static final long PARAMETER_PRIME = 2147483629L;
-
-    static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress) {
-        return solve(rows, columns, progress, PARAMETER_PRIME);
+    /**
+     * The order of propagation, which depends only on where the rows have entries, not on their
+     * values: steps[i] &gt;= 0 is a row that fixes its one undetermined column, steps[i] &lt; 0 the
+     * column -1 - steps[i] made a parameter; used marks the rows that fixed a column, params lists
+     * the parameter columns in order (parameter q is params[q - 1]).
+     */
+    record Plan(int[] steps, boolean[] used, int[] params) {
+        boolean allUsed() {
+            for (boolean u : used) {
+                if (!u) {
+                    return false;
+                }
+            }
+            return true;
+        }
     }
 
-    /**
-     * As {@link #solve(List, int, SolveProgress)}, choosing the parameter system's rows modulo the
-     * given prime; 0 runs the reference elimination on all of them (the tests use both, and small
-     * primes to reach the fallback).
-     */
-    static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress, long prime) {
-        Rational[][] val = new Rational[columns][];
+    static Outcome solve(List<IntegerRow> rows, int columns, SolveProgress progress) {
+        Plan plan = plan(rows, columns, progress);
+        if (!plan.allUsed()) {
+            Outcome modular = ModularPropagation.solve(rows, columns, plan);
+            if (modular != null) {
+                return modular;
+            }
+        }
+        return exact(rows, columns, plan);
+    }
+
+    static Plan plan(List<IntegerRow> rows, int columns, SolveProgress progress) {
+        boolean[] det = new boolean[columns];
         List<Integer> params = new ArrayList<>();
+        int[] steps = new int[columns];
         int[][] byCol = rowsByColumn(rows, columns);
         int[] open = new int[rows.size()];
         boolean[] used = new boolean[rows.size()];
@@ -64,9 +84,15 @@ final class ExactPropagation {
                 if (open[r] != 1) {
                     continue;
                 }
-                int c = determine(rows.get(r), val, params.size());
+                int c = -1;
+                for (int col : rows.get(r).cols) {
+                    if (!det[col]) {
+                        c = col;
+                    }
+                }
+                det[c] = true;
                 used[r] = true;
-                known++;
+                steps[known++] = r;
                 progress.determined(known);
                 for (int q : byCol[c]) {
                     if (--open[q] == 1) {
@@ -78,53 +104,60 @@ final class ExactPropagation {
                 break;
             }
             Cancellation.check();
-            int c = leastConstrained(rows, open, val, byCol);
+            int c = leastConstrained(rows, open, det, byCol);
             params.add(c);
-            Rational[] v = zeros(params.size() + 1);
-            v[params.size()] = Rational.ONE;
-            val[c] = v;
-            known++;
+            det[c] = true;
+            steps[known++] = -1 - c;
             for (int q : byCol[c]) {
                 if (--open[q] == 1) {
                     stack[top++] = q;
                 }
             }
         }
-        int k = params.size();
-        for (int c = 0; c < columns; c++) {
-            if (val[c].length < k + 1) {
-                Rational[] v = zeros(k + 1);
-                System.arraycopy(val[c], 0, v, 0, val[c].length);
-                val[c] = v;
+        return new Plan(steps, used, params.stream().mapToInt(Integer::intValue).toArray());
+    }
+
+    /** The plan carried out in exact arithmetic, then the parameters reduced by exact elimination. */
+    static Outcome exact(List<IntegerRow> rows, int columns, Plan plan) {
+        Affine[] val = new Affine[columns];
+        int k = 0;
+        for (int i = 0; i < plan.steps().length; i++) {
+            if ((i & 1023) == 0) {
+                Cancellation.check();
+            }
+            int step = plan.steps()[i];
+            if (step < 0) {
+                val[-1 - step] = Affine.unit(++k);
+            } else {
+                determine(rows.get(step), val);
             }
         }
-        List<Rational[]> residual = residuals(rows, used, val, k);
+        List<Integer> params = Arrays.stream(plan.params()).boxed().toList();
+        List<Affine> residual = residuals(rows, plan.used(), val);
         if (residual.isEmpty()) {
-            return new Outcome(val, params.stream().mapToInt(Integer::intValue).toArray(), true);
+            return new Outcome(dense(val, k + 1), plan.params(), true);
         }
-        return prime <= 0 ? reduceParametersByElimination(val, params, residual) : reduceParameters(val, params, residual, prime);
+        Expressed exact = eliminateAndExpress(val, params, residual);
+        return exact != null ? exact.outcome() : new Outcome(null, null, false);
     }
 
     /** Solves row for its one undetermined column; returns that column. */
-    private static int determine(IntegerRow row, Rational[][] val, int k) {
+    private static int determine(IntegerRow row, Affine[] val) {
         int at = -1;
-        Rational[] acc = zeros(k + 1);
-        acc[0] = Rational.of(row.rhs);
+        Affine[] known = new Affine[row.length()];
+        Rational[] coef = new Rational[row.length()];
+        int n = 0;
         for (int i = 0; i < row.length(); i++) {
-            Rational[] v = val[row.cols[i]];
+            Affine v = val[row.cols[i]];
             if (v == null) {
                 at = i;
             } else {
-                addScaled(acc, v, row.rational(i).negate());
+                known[n] = v;
+                coef[n++] = row.rational(i).negate();
             }
         }
         Rational inv = row.rational(at).inverse();
-        for (int j = 0; j <= k; j++) {
-            if (!acc[j].isZero()) {
-                acc[j] = acc[j].multiply(inv);
-            }
-        }
-        val[row.cols[at]] = acc;
+        val[row.cols[at]] = Affine.combine(known, coef, n, Rational.of(row.rhs)).times(inv);
         return row.cols[at];
     }
 
@@ -133,12 +166,12 @@ final class ExactPropagation {
      * (so that propagation resumes), occurring in the fewest equations; any undetermined column if
      * there is no such equation.
      */
-    private static int leastConstrained(List<IntegerRow> rows, int[] open, Rational[][] val, int[][] byCol) {
+    private static int leastConstrained(List<IntegerRow> rows, int[] open, boolean[] det, int[][] byCol) {
         int best = -1;
         for (int r = 0; r < rows.size(); r++) {
             if (open[r] == 2) {
                 for (int c : rows.get(r).cols) {
-                    if (val[c] == null && (best < 0 || byCol[c].length < byCol[best].length
+                    if (!det[c] && (best < 0 || byCol[c].length < byCol[best].length
                             || byCol[c].length == byCol[best].length && c < best)) {
                         best = c;
                     }
@@ -148,8 +181,8 @@ final class ExactPropagation {
         if (best >= 0) {
             return best;
         }
-        for (int c = 0; c < val.length; c++) {
-            if (val[c] == null && (best < 0 || byCol[c].length < byCol[best].length)) {
+        for (int c = 0; c < det.length; c++) {
+            if (!det[c] && (best < 0 || byCol[c].length < byCol[best].length)) {
                 best = c;
             }
         }
@@ -157,383 +190,51 @@ final class ExactPropagation {
     }
 
     /**
-     * sum a_j x_j - b for every equation not used in propagation, as affine vectors over the
-     * parameters; zero vectors dropped. Each component is scaled to integers once, so this is
-     * integer multiply-adds, over equations on the shared pool (in equation order).
+     * sum a_j x_j - b for every equation not used in propagation, as affine functions of the
+     * parameters; zero ones dropped. The values are sparse (a parameter reaches few unknowns), so
+     * each row costs the sizes of its few values, over equations on the shared pool (in equation order).
      */
-    private static List<Rational[]> residuals(List<IntegerRow> rows, boolean[] used, Rational[][] val, int k) {
-        BigInteger[] scale = new BigInteger[k + 1];
-        BigInteger[][] x = new BigInteger[k + 1][];
-        for (int j = 0; j <= k; j++) {
-            BigInteger lcm = BigInteger.ONE;
-            for (Rational[] v : val) {
-                BigInteger d = v[j].denominator();
-                if (!d.equals(BigInteger.ONE) && lcm.mod(d).signum() != 0) {
-                    lcm = lcm.divide(lcm.gcd(d)).multiply(d);
-                }
-            }
-            scale[j] = lcm;
-            x[j] = new BigInteger[val.length];
-            for (int c = 0; c < val.length; c++) {
-                Rational v = val[c][j];
-                x[j][c] = v.isZero() ? BigInteger.ZERO : v.numerator().multiply(lcm.divide(v.denominator()));
-            }
-        }
+    private static List<Affine> residuals(List<IntegerRow> rows, boolean[] used, Affine[] val) {
         int[] unused = IntStream.range(0, rows.size()).filter(r -> !used[r]).toArray();
-        List<Rational[]> out = new ArrayList<>();
-        for (Rational[] v : Parallel.map(unused.length, u -> {
-            IntegerRow row = rows.get(unused[u]);
-            Rational[] res = null;
-            for (int j = 0; j <= k; j++) {
-                BigInteger sum = j == 0 ? row.rhs.multiply(scale[0]).negate() : BigInteger.ZERO;
-                for (int i = 0; i < row.length(); i++) {
-                    BigInteger xc = x[j][row.cols[i]];
-                    if (xc.signum() != 0) {
-                        sum = sum.add(row.small != null ? xc.multiply(BigInteger.valueOf(row.small[i])) : xc.multiply(row.big[i]));
-                    }
-                }
-                if (sum.signum() != 0) {
-                    if (res == null) {
-                        res = zeros(k + 1);
-                    }
-                    res[j] = Rational.of(sum, scale[j]);
-                }
-            }
-            return res;
-        })) {
-            if (v != null) {
-                out.add(v);
+        List<Affine> out = new ArrayList<>();
+        for (Affine res : Parallel.map(unused.length, u -> apply(rows.get(unused[u]), val))) {
+            if (!res.isZero()) {
+                out.add(res);
             }
         }
         return out;
     }
 
+    /** sum a_j x_j - b of one equation, the x_j affine functions over the same coordinates. */
+    private static Affine apply(IntegerRow row, Affine[] x) {
+        Affine[] vs = new Affine[row.length()];
+        Rational[] coef = new Rational[row.length()];
+        for (int i = 0; i < row.length(); i++) {
+            vs[i] = x[row.cols[i]];
+            coef[i] = row.rational(i);
+        }
+        return Affine.combine(vs, coef, vs.length, Rational.of(row.rhs).negate());
+    }
+
+    /** Every value as a sparse affine function of the free parameters (the columns in free). */
+    private record Expressed(Affine[] values, int[] free) {
+        Outcome outcome() {
+            return new Outcome(dense(values, free.length + 1), free, true);
+        }
+    }
+
     /**
-     * Solves the residual equations res_0 + sum_q res_q p_q = 0 for the parameters exactly, then
-     * rewrites every value in the parameters that stay free.
-     *
-     * <p>The residual rows are many, dense in the parameters and carry large numbers, while their
-     * rank is at most the number of parameters. So the rows independent modulo one word-size prime
-     * are chosen first, and their reduced row echelon form is found modulo further primes and
-     * rebuilt by rational reconstruction; the candidate is checked exactly against every residual
-     * row. When all hold, it is the reduced row echelon form (lowest-column pivots) of the whole
-     * system, which is unique: the free parameters and values are those of elimination on all rows.
-     * Otherwise (an unlucky prime, no candidate within the prime budget, an inconsistency) exact
-     * elimination runs on all rows.
+     * Solves the residual equations res_0 + sum_q res_q p_q = 0 for the parameters by exact
+     * Gauss-Jordan elimination of the rows in order (lowest parameter as pivot), then rewrites every
+     * value in the parameters that stay free; null when the equations contradict each other.
      */
-    private static Outcome reduceParameters(Rational[][] val, List<Integer> params, List<Rational[]> residual, long prime) {
+    private static Expressed eliminateAndExpress(Affine[] val, List<Integer> params, List<Affine> residual) {
         int k = params.size();
-        List<Rational[]> chosen = independentModulo(residual, k, prime);
-        if (chosen != null && chosen.size() < residual.size()) {
-            ParameterValues pv = reconstructed(k, chosen, residual);
-            if (pv != null) {
-                return apply(val, params, pv);
-            }
-        }
-        return reduceParametersByElimination(val, params, residual);
-    }
-
-    /**
-     * The reference for {@link #reduceParameters} (its former path, kept for the tests and as the
-     * fallback): exact Gauss-Jordan over Q on every residual row, lowest-column pivots.
-     */
-    static Outcome reduceParametersByElimination(Rational[][] val, List<Integer> params, List<Rational[]> residual) {
-        ParameterValues pv = eliminate(params.size(), residual);
-        return pv == null ? new Outcome(null, null, false) : apply(val, params, pv);
-    }
-
-    /** Parameter q (1-based) as [constant, coefficient of each free parameter]; the free ones (1-based, ascending). */
-    private record ParameterValues(Rational[][] values, List<Integer> freeQ) { }
-
-    /**
-     * The rows (with their right sides) independent modulo p, in input order, found by incremental
-     * elimination; null when a denominator vanishes modulo p.
-     */
-    private static List<Rational[]> independentModulo(List<Rational[]> residual, int k, long p) {
-        // positions 0..k-1 are the parameters 1..k, position k the right side
-        long[][] pivot = new long[k + 1][];
-        List<Rational[]> chosen = new ArrayList<>();
-        BigInteger bp = BigInteger.valueOf(p);
-        for (Rational[] res : residual) {
-            long[] row = new long[k + 1];
-            for (int q = 0; q <= k; q++) {
-                if (!res[q].isZero()) {
-                    long den = res[q].denominator().mod(bp).longValue();
-                    if (den == 0) {
-                        return null;
-                    }
-                    long num = res[q].numerator().mod(bp).longValue();
-                    row[q == 0 ? k : q - 1] = num * inverseModulo(den, p) % p;
-                }
-            }
-            for (int c = 0; c <= k; c++) {
-                if (row[c] == 0) {
-                    continue;
-                }
-                if (pivot[c] == null) {
-                    long inv = inverseModulo(row[c], p);
-                    for (int j = c; j <= k; j++) {
-                        row[j] = row[j] * inv % p;
-                    }
-                    pivot[c] = row;
-                    chosen.add(res);
-                    break;
-                }
-                long f = p - row[c];
-                long[] pr = pivot[c];
-                for (int j = c; j <= k; j++) {
-                    row[j] = (row[j] + f * pr[j]) % p;
-                }
-            }
-        }
-        return chosen;
-    }
-
-    /** Whether every residual row vanishes on the parameter values (exactly). */
-    private static boolean satisfiesAll(ParameterValues pv, List<Rational[]> residual) {
-        int width = pv.freeQ().size() + 1;
-        for (Rational[] res : residual) {
-            for (int j = 0; j < width; j++) {
-                Rational sum = j == 0 ? res[0] : Rational.ZERO;
-                for (int q = 1; q < res.length; q++) {
-                    if (!res[q].isZero() && !pv.values()[q][j].isZero()) {
-                        sum = sum.add(res[q].multiply(pv.values()[q][j]));
-                    }
-                }
-                if (!sum.isZero()) {
-                    return false;
-                }
-            }
-        }
-        return true;
-    }
-
-    /**
-     * The reduced row echelon form of the rows (lowest-column pivots) from their images modulo
-     * word-size primes, each entry recovered by rational reconstruction from the CRT residues, then
-     * checked exactly against every residual row; null when no candidate passes within the prime
-     * budget (or a prime finds the rows inconsistent), and the caller eliminates exactly.
-     *
-     * <p>Why it is exact (the argument of {@code ModularLinearSolver}, common practice): the
-     * candidate's pivot columns are independent over Q because they are modulo a prime; each null
-     * vector is 1 at its free column and otherwise supported on pivot columns below it, so when the
-     * exact check shows it annihilates every row, that free column is no pivot over Q; hence the pivot
-     * sets agree, and given them the particular solution and the null vectors are unique. Unlike
-     * the determinant-scaled reconstruction of that solver, the number of primes needed follows the
-     * size of the answer, not of the rows' numbers (hundreds of bits here, while the answer is small).
-     */
-    private static ParameterValues reconstructed(int k, List<Rational[]> rows, List<Rational[]> residual) {
-        int m = rows.size();
-        long p = 2147483587L; // below 2^31 - 1 and the prime that chose the rows
-        int[] bestPivots = null;
-        BigInteger modulus = BigInteger.ONE;
-        BigInteger[][] crt = null;  // per pivot index, per position (free columns..., rhs) the CRT value
-        int primes = 0;
-        int nextTry = 1;
-        for (int attempt = 0; attempt < 400; attempt++) {
-            p = previousPrime(p - 1);
-            long[][] red = reduce(k, rows, p);
-            if (red == null) {
-                continue;
-            }
-            // Gauss-Jordan modulo p, lowest-column pivots, rows in order
-            long[][] piv = new long[k][];
-            for (long[] row : red) {
-                for (int c = 0; c <= k; c++) {
-                    if (row[c] == 0) {
-                        continue;
-                    }
-                    if (c == k) {
-                        return null; // inconsistent modulo p: leave it to exact elimination
-                    }
-                    if (piv[c] == null) {
-                        // clear the later pivot columns too (pivot rows carry no other pivot column)
-                        for (int d = c + 1; d < k; d++) {
-                            if (piv[d] != null && row[d] != 0) {
-                                long f = p - row[d];
-                                long[] pd = piv[d];
-                                for (int j = d; j <= k; j++) {
-                                    row[j] = (row[j] + f * pd[j]) % p;
-                                }
-                            }
-                        }
-                        long inv = inverseModulo(row[c], p);
-                        for (int j = c; j <= k; j++) {
-                            row[j] = row[j] * inv % p;
-                        }
-                        for (long[] other : piv) {
-                            if (other != null && other[c] != 0) {
-                                long f = p - other[c];
-                                for (int j = c; j <= k; j++) {
-                                    other[j] = (other[j] + f * row[j]) % p;
-                                }
-                            }
-                        }
-                        piv[c] = row;
-                        break;
-                    }
-                    long f = p - row[c];
-                    long[] pr = piv[c];
-                    for (int j = c; j <= k; j++) {
-                        row[j] = (row[j] + f * pr[j]) % p;
-                    }
-                }
-            }
-            int[] pivots = java.util.stream.IntStream.range(0, k).filter(c -> piv[c] != null).toArray();
-            int cmp = bestPivots == null ? -1 : comparePivots(pivots, bestPivots);
-            if (cmp > 0) {
-                continue; // an unlucky prime
-            }
-            if (cmp < 0) {
-                bestPivots = pivots;
-                modulus = BigInteger.ONE;
-                crt = new BigInteger[pivots.length][k + 1];
-                for (BigInteger[] r : crt) {
-                    Arrays.fill(r, BigInteger.ZERO);
-                }
-                primes = 0;
-                nextTry = 1;
-            }
-            BigInteger bp = BigInteger.valueOf(p);
-            BigInteger mInv = modulus.mod(bp).modInverse(bp);
-            for (int i = 0; i < pivots.length; i++) {
-                long[] row = piv[pivots[i]];
-                for (int j = 0; j <= k; j++) {
-                    BigInteger x = crt[i][j];
-                    long diff = Math.floorMod(row[j] - x.mod(bp).longValue(), p);
-                    if (diff != 0) {
-                        crt[i][j] = x.add(modulus.multiply(BigInteger.valueOf(diff).multiply(mInv).mod(bp)));
-                    }
-                }
-            }
-            modulus = modulus.multiply(bp);
-            primes++;
-            if (primes < nextTry) {
-                continue;
-            }
-            nextTry = primes * 2;
-            ParameterValues candidate = candidate(k, bestPivots, crt, modulus);
-            if (candidate != null && satisfiesAll(candidate, residual)) {
-                return candidate;
-            }
-        }
-        return null;
-    }
-
-    /** The rows modulo p as [parameters 1..k | right side], or null when a denominator vanishes modulo p. */
-    private static long[][] reduce(int k, List<Rational[]> rows, long p) {
-        BigInteger bp = BigInteger.valueOf(p);
-        long[][] out = new long[rows.size()][];
-        for (int r = 0; r < rows.size(); r++) {
-            Rational[] res = rows.get(r);
-            long[] row = new long[k + 1];
-            for (int q = 0; q <= k; q++) {
-                if (!res[q].isZero()) {
-                    long den = res[q].denominator().mod(bp).longValue();
-                    if (den == 0) {
-                        return null;
-                    }
-                    long num = res[q].numerator().mod(bp).longValue();
-                    long v = num * inverseModulo(den, p) % p;
-                    // the right side of sum res_q p_q = -res_0
-                    row[q == 0 ? k : q - 1] = q == 0 ? (p - v) % p : v;
-                }
-            }
-            out[r] = row;
-        }
-        return out;
-    }
-
-    /** Higher rank first, then the lexicographically smaller pivot columns. Negative: a better than b. */
-    private static int comparePivots(int[] a, int[] b) {
-        if (a.length != b.length) {
-            return a.length > b.length ? -1 : 1;
-        }
-        return Arrays.compare(a, b);
-    }
-
-    /** The parameter values whose RREF entries reconstruct from the CRT values; null if one does not. */
-    private static ParameterValues candidate(int k, int[] pivots, BigInteger[][] crt, BigInteger modulus) {
-        boolean[] isPivot = new boolean[k];
-        for (int c : pivots) {
-            isPivot[c] = true;
-        }
-        List<Integer> freeQ = new ArrayList<>();
-        for (int c = 0; c < k; c++) {
-            if (!isPivot[c]) {
-                freeQ.add(c + 1);
-            }
-        }
-        Rational[][] paramVal = new Rational[k + 1][];
-        for (int q = 1; q <= k; q++) {
-            paramVal[q] = zeros(freeQ.size() + 1);
-        }
-        for (int i = 0; i < freeQ.size(); i++) {
-            paramVal[freeQ.get(i)][i + 1] = Rational.ONE;
-        }
-        BigInteger bound = modulus.shiftRight(1).sqrt();
-        for (int i = 0; i < pivots.length; i++) {
-            int q = pivots[i] + 1;
-            Rational rhs = rationalReconstruction(crt[i][k], modulus, bound);
-            if (rhs == null) {
-                return null;
-            }
-            paramVal[q][0] = rhs;
-            for (int f = 0; f < freeQ.size(); f++) {
-                int col = freeQ.get(f) - 1;
-                if (col < pivots[i]) {
-                    continue;
-                }
-                Rational e = rationalReconstruction(crt[i][col], modulus, bound);
-                if (e == null) {
-                    return null;
-                }
-                paramVal[q][f + 1] = e.negate();
-            }
-        }
-        return new ParameterValues(paramVal, freeQ);
-    }
-
-    /** a/b with a = b x mod m, |a|, b <= bound (Wang's algorithm, common practice); null if none. */
-    static Rational rationalReconstruction(BigInteger x, BigInteger m, BigInteger bound) {
-        BigInteger r0 = m;
-        BigInteger r1 = x.mod(m);
-        BigInteger t0 = BigInteger.ZERO;
-        BigInteger t1 = BigInteger.ONE;
-        while (r1.compareTo(bound) > 0) {
-            BigInteger[] qr = r0.divideAndRemainder(r1);
-            r0 = r1;
-            r1 = qr[1];
-            BigInteger t = t0.subtract(qr[0].multiply(t1));
-            t0 = t1;
-            t1 = t;
-        }
-        if (t1.signum() == 0 || t1.abs().compareTo(bound) > 0 || !r1.gcd(t1).equals(BigInteger.ONE)) {
-            return null;
-        }
-        return Rational.of(r1, t1);
-    }
-
-    /** The largest prime below n (n small enough for a long). */
-    private static long previousPrime(long n) {
-        long c = n;
-        while (!BigInteger.valueOf(c).isProbablePrime(40)) {
-            c--;
-        }
-        return c;
-    }
-
-    /** Exact Gauss-Jordan on the rows (lowest-column pivots); null when they are inconsistent. */
-    private static ParameterValues eliminate(int k, List<Rational[]> residual) {
         List<TreeMap<Integer, Rational>> pivRows = new ArrayList<>();
         List<Integer> pivCols = new ArrayList<>();
-        for (Rational[] res : residual) {
-            TreeMap<Integer, Rational> row = new TreeMap<>();
-            for (int q = 0; q <= k; q++) {
-                if (!res[q].isZero()) {
-                    row.put(q, res[q]);
-                }
-            }
+        for (Affine res : residual) {
+            Cancellation.check();
+            TreeMap<Integer, Rational> row = res.toMap();
             for (int i = 0; i < pivCols.size(); i++) {
                 Rational a = row.get(pivCols.get(i));
                 if (a != null) {
@@ -559,67 +260,65 @@ final class ExactPropagation {
             pivCols.add(lead);
         }
         // parameter q (1-based) as affine in the free parameters: p_q = -row_0 - sum_{free f} row_f p_f
+        int[] freeIndex = new int[k + 1];
+        Arrays.fill(freeIndex, -1);
+        int[] pivotOf = new int[k + 1];
+        Arrays.fill(pivotOf, -1);
+        for (int i = 0; i < pivCols.size(); i++) {
+            pivotOf[pivCols.get(i)] = i;
+        }
         List<Integer> freeQ = new ArrayList<>();
         for (int q = 1; q <= k; q++) {
-            if (!pivCols.contains(q)) {
+            if (pivotOf[q] < 0) {
                 freeQ.add(q);
+                freeIndex[q] = freeQ.size();
             }
         }
-        Rational[][] paramVal = new Rational[k + 1][];
+        Affine[] paramVal = new Affine[k + 1];
         for (int q = 1; q <= k; q++) {
-            Rational[] v = zeros(freeQ.size() + 1);
-            int i = pivCols.indexOf(q);
-            if (i < 0) {
-                v[freeQ.indexOf(q) + 1] = Rational.ONE;
+            if (pivotOf[q] < 0) {
+                paramVal[q] = Affine.unit(freeIndex[q]);
             } else {
-                for (var e : pivRows.get(i).entrySet()) {
+                TreeMap<Integer, Rational> v = new TreeMap<>();
+                for (var e : pivRows.get(pivotOf[q]).entrySet()) {
                     int f = e.getKey();
                     if (f == 0) {
-                        v[0] = e.getValue().negate();
+                        v.put(0, e.getValue().negate());
                     } else if (f != q) {
-                        v[freeQ.indexOf(f) + 1] = e.getValue().negate();
+                        v.put(freeIndex[f], e.getValue().negate());
                     }
                 }
+                paramVal[q] = Affine.of(v);
             }
-            paramVal[q] = v;
         }
-        return new ParameterValues(paramVal, freeQ);
-    }
-
-    /** Every column's value rewritten in the free parameters. */
-    private static Outcome apply(Rational[][] val, List<Integer> params, ParameterValues pv) {
-        List<Integer> freeQ = pv.freeQ();
-        Rational[][] out = new Rational[val.length][];
+        Affine[] out = new Affine[val.length];
         for (int c = 0; c < val.length; c++) {
-            Rational[] v = zeros(freeQ.size() + 1);
-            v[0] = val[c][0];
-            for (int q = 1; q < val[c].length; q++) {
-                if (!val[c][q].isZero()) {
-                    addScaled(v, pv.values()[q], val[c][q]);
-                }
+            if ((c & 255) == 0) {
+                Cancellation.check();
             }
-            out[c] = v;
+            out[c] = val[c].substitute(paramVal);
         }
         int[] free = freeQ.stream().mapToInt(q -> params.get(q - 1)).toArray();
-        return new Outcome(out, free, true);
+        return new Expressed(out, free);
     }
 
-    /** a^-1 mod p for 0 < a < p, p prime (extended Euclid). */
-    private static long inverseModulo(long a, long p) {
-        long r0 = p;
-        long r1 = a;
-        long t0 = 0;
-        long t1 = 1;
-        while (r1 != 0) {
-            long q = r0 / r1;
-            long r = r0 - q * r1;
-            r0 = r1;
-            r1 = r;
-            long t = t0 - q * t1;
-            t0 = t1;
-            t1 = t;
+    /** Whether every equation holds for the constant part and for each free direction of the values. */
+    static boolean holds(List<IntegerRow> rows, Affine[] x) {
+        int chunk = 256;
+        int chunks = (rows.size() + chunk - 1) / chunk;
+        for (boolean ok : Parallel.map(chunks, c -> {
+            for (int r = c * chunk; r < Math.min(rows.size(), (c + 1) * chunk); r++) {
+                if (!apply(rows.get(r), x).isZero()) {
+                    return false;
+                }
+            }
+            return true;
+        })) {
+            if (!ok) {
+                return false;
+            }
         }
-        return t0 < 0 ? t0 + p : t0;
+        return true;
     }
 
     private static void axpy(TreeMap<Integer, Rational> row, TreeMap<Integer, Rational> piv, Rational f) {
@@ -653,17 +352,146 @@ final class ExactPropagation {
         return byCol;
     }
 
-    private static void addScaled(Rational[] acc, Rational[] v, Rational f) {
-        for (int j = 0; j < v.length; j++) {
-            if (!v[j].isZero()) {
-                acc[j] = acc[j].add(v[j].multiply(f));
+    static Rational[][] dense(Affine[] val, int width) {
+        Rational[][] out = new Rational[val.length][];
+        for (int c = 0; c < val.length; c++) {
+            Rational[] v = new Rational[width];
+            Arrays.fill(v, Rational.ZERO);
+            Affine a = val[c];
+            for (int i = 0; i < a.idx.length; i++) {
+                v[a.idx[i]] = a.val[i];
             }
+            out[c] = v;
         }
+        return out;
     }
 
-    private static Rational[] zeros(int n) {
-        Rational[] z = new Rational[n];
-        Arrays.fill(z, Rational.ZERO);
-        return z;
+    /**
+     * A sparse affine function of the parameters: coefficient val[i] at coordinate idx[i] (0 the
+     * constant, q the q-th parameter), idx increasing, no zero coefficients. Parameters reach few
+     * unknowns each, so dense vectors of length k + 1 would be mostly zeros.
+     */
+    static final class Affine {
+        private static final Affine ZERO = new Affine(new int[0], new Rational[0]);
+        final int[] idx;
+        final Rational[] val;
+
+        Affine(int[] idx, Rational[] val) {
+            this.idx = idx;
+            this.val = val;
+        }
+
+        static Affine unit(int q) {
+            return new Affine(new int[] {q}, new Rational[] {Rational.ONE});
+        }
+
+        static Affine of(TreeMap<Integer, Rational> entries) {
+            int[] idx = new int[entries.size()];
+            Rational[] val = new Rational[entries.size()];
+            int n = 0;
+            for (var e : entries.entrySet()) {
+                if (!e.getValue().isZero()) {
+                    idx[n] = e.getKey();
+                    val[n++] = e.getValue();
+                }
+            }
+            return new Affine(Arrays.copyOf(idx, n), Arrays.copyOf(val, n));
+        }
+
+        boolean isZero() {
+            return idx.length == 0;
+        }
+
+        TreeMap<Integer, Rational> toMap() {
+            TreeMap<Integer, Rational> m = new TreeMap<>();
+            for (int i = 0; i < idx.length; i++) {
+                m.put(idx[i], val[i]);
+            }
+            return m;
+        }
+
+        Affine times(Rational f) {
+            if (f.isOne()) {
+                return this;
+            }
+            Rational[] v = new Rational[val.length];
+            for (int i = 0; i < v.length; i++) {
+                v[i] = val[i].multiply(f);
+            }
+            return new Affine(idx, v);
+        }
+
+        /** constant + sum_i coef[i] * vs[i] over the first n terms. */
+        static Affine combine(Affine[] vs, Rational[] coef, int n, Rational constant) {
+            int total = constant.isZero() ? 0 : 1;
+            for (int i = 0; i < n; i++) {
+                total += vs[i].idx.length;
+            }
+            long[] keys = new long[total];
+            Rational[] terms = new Rational[total];
+            int m = 0;
+            if (!constant.isZero()) {
+                keys[m] = m;
+                terms[m++] = constant;
+            }
+            for (int i = 0; i < n; i++) {
+                Affine v = vs[i];
+                for (int j = 0; j < v.idx.length; j++) {
+                    keys[m] = ((long) v.idx[j] << 32) | m;
+                    terms[m++] = v.val[j].multiply(coef[i]);
+                }
+            }
+            return collect(keys, terms);
+        }
+
+        /** This function with parameter q replaced by sub[q] (an affine function of new coordinates). */
+        Affine substitute(Affine[] sub) {
+            int total = 0;
+            for (int i = 0; i < idx.length; i++) {
+                total += idx[i] == 0 ? 1 : sub[idx[i]].idx.length;
+            }
+            long[] keys = new long[total];
+            Rational[] terms = new Rational[total];
+            int m = 0;
+            for (int i = 0; i < idx.length; i++) {
+                if (idx[i] == 0) {
+                    keys[m] = m;
+                    terms[m++] = val[i];
+                    continue;
+                }
+                Affine s = sub[idx[i]];
+                for (int j = 0; j < s.idx.length; j++) {
+                    keys[m] = ((long) s.idx[j] << 32) | m;
+                    terms[m++] = s.val[j].multiply(val[i]);
+                }
+            }
+            return collect(keys, terms);
+        }
+
+        /** Sums the terms by coordinate (the high half of each key; the low half is the term's position). */
+        private static Affine collect(long[] keys, Rational[] terms) {
+            if (keys.length == 0) {
+                return ZERO;
+            }
+            Arrays.sort(keys);
+            int[] idx = new int[keys.length];
+            Rational[] val = new Rational[keys.length];
+            int n = 0;
+            for (int a = 0; a < keys.length; ) {
+                int coordinate = (int) (keys[a] >>> 32);
+                Rational sum = terms[(int) keys[a]];
+                int b = a + 1;
+                while (b < keys.length && (int) (keys[b] >>> 32) == coordinate) {
+                    sum = sum.add(terms[(int) keys[b]]);
+                    b++;
+                }
+                if (!sum.isZero()) {
+                    idx[n] = coordinate;
+                    val[n++] = sum;
+                }
+                a = b;
+            }
+            return n == keys.length ? new Affine(idx, val) : new Affine(Arrays.copyOf(idx, n), Arrays.copyOf(val, n));
+        }
     }
 }

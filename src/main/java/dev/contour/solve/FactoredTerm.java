@@ -78,20 +78,41 @@ final class FactoredTerm {
                 cofactor);
     }
 
-    /** The product with another term (forms on equal lines merge). Null for 0. */
+    /**
+     * The product with another term (forms on equal lines merge). Null for 0. Both terms are
+     * canonical (monic, distinct, non-constant forms; non-zero coefficients), so only equal forms
+     * need merging: the result is the one {@link #of} gives for the concatenated lists, without
+     * re-normalising every form.
+     */
     FactoredTerm times(FactoredTerm o) {
-        List<LinearForm> fs = new ArrayList<>(forms.length + o.forms.length);
-        fs.addAll(List.of(forms));
-        fs.addAll(List.of(o.forms));
-        List<Integer> es = new ArrayList<>(fs.size());
-        for (int e : exps) {
-            es.add(e);
-        }
-        for (int e : o.exps) {
-            es.add(e);
+        int n = forms.length;
+        LinearForm[] fs = Arrays.copyOf(forms, n + o.forms.length);
+        int[] es = Arrays.copyOf(exps, n + o.forms.length);
+        for (int j = 0; j < o.forms.length; j++) {
+            LinearForm f = o.forms[j];
+            int at = -1;
+            for (int i = 0; i < n; i++) {
+                if (fs[i].equals(f)) {
+                    at = i;
+                    break;
+                }
+            }
+            if (at < 0) {
+                fs[n] = f;
+                es[n++] = o.exps[j];
+                continue;
+            }
+            int sum = es[at] + o.exps[j];
+            if (sum != 0) {
+                es[at] = sum;
+                continue;
+            }
+            System.arraycopy(fs, at + 1, fs, at, n - at - 1);
+            System.arraycopy(es, at + 1, es, at, n - at - 1);
+            n--;
         }
         Polynomial cof = cofactor == null ? o.cofactor : o.cofactor == null ? cofactor : cofactor.multiply(o.cofactor);
-        return of(coefficient.multiply(o.coefficient), fs, es, cof);
+        return new FactoredTerm(coefficient.multiply(o.coefficient), Arrays.copyOf(fs, n), Arrays.copyOf(es, n), cof);
     }
 
     /**

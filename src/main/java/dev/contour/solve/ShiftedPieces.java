@@ -8,11 +8,14 @@ import dev.contour.algebra.Polynomial;
 import dev.contour.algebra.Rational;
 import dev.contour.algebra.RationalFunction;
 import dev.contour.algebra.ShiftedSum;
+import java.lang.ref.SoftReference;
+import java.lang.ref.WeakReference;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.TreeSet;
+import java.util.concurrent.atomic.AtomicReferenceArray;
 
 /**
  * The pieces of a shift operator applied to an ansatz, {@code sum_k c_k * f(v + a_k)}, read off
@@ -33,12 +36,15 @@ final class ShiftedPieces implements Constraint.PieceSource {
     private final List<Integer> columns;
     private final List<Expression> argumentPieces;
     private final List<Block> blocks;
+    /** Pieces already computed (pieces are immutable; a second condition on the same sum reuses them). */
+    private final AtomicReferenceArray<Piece> built;
 
     private ShiftedPieces(List<String> vars, List<Integer> columns, List<Expression> argumentPieces, List<Block> blocks) {
         this.vars = vars;
         this.columns = columns;
         this.argumentPieces = argumentPieces;
         this.blocks = blocks;
+        this.built = new AtomicReferenceArray<>(columns.size());
     }
 
     /**
@@ -47,6 +53,28 @@ final class ShiftedPieces implements Constraint.PieceSource {
      * caller then uses the collected value.
      */
     static ShiftedPieces of(ShiftedSum sum, List<String> unknowns, Set<String> extra) {
+        LastBuilt last = lastBuilt.get();
+        if (last != null && last.sum.get() == sum && last.unknowns.equals(unknowns) && last.extra.equals(extra)) {
+            return last.pieces;
+        }
+        ShiftedPieces built = build(sum, unknowns, extra);
+        if (built != null) {
+            lastBuilt = new SoftReference<>(new LastBuilt(new WeakReference<>(sum), List.copyOf(unknowns), Set.copyOf(extra), built));
+        }
+        return built;
+    }
+
+    /**
+     * The pieces built last, for the same operator application under the next condition: a solve
+     * usually puts several conditions (residues, pole places) on one {@code E(M)}, and factoring the
+     * operator's coefficients and splitting M by unknown is the same work for each. One entry,
+     * softly held, so memory stays bounded; the sum is compared by identity (values are immutable).
+     */
+    private record LastBuilt(WeakReference<ShiftedSum> sum, List<String> unknowns, Set<String> extra, ShiftedPieces pieces) { }
+
+    private static volatile SoftReference<LastBuilt> lastBuilt = new SoftReference<>(null);
+
+    private static ShiftedPieces build(ShiftedSum sum, List<String> unknowns, Set<String> extra) {
         if (!sum.coefficientsFreeOf(Set.copyOf(unknowns)) || !linearDenominators(sum.argument())
                 || !sum.blocks().stream().allMatch(b -> linearDenominators(b.coefficient()))) {
             return null;
@@ -100,6 +128,15 @@ final class ShiftedPieces implements Constraint.PieceSource {
 
     @Override
     public Piece piece(int i) {
+        Piece done = built.get(i);
+        if (done == null) {
+            done = compute(i);
+            built.set(i, done);
+        }
+        return done;
+    }
+
+    private Piece compute(int i) {
         List<Monomial> ms = new ArrayList<>();
         List<FactoredTerm> ts = new ArrayList<>();
         argumentPieces.get(i).terms().forEach((ym, yf) -> {
