@@ -412,7 +412,7 @@ public final class SweepCommand implements Subcommand {
         boolean stack = false;
         for (String arg : ManagementFactory.getRuntimeMXBean().getInputArguments()) {
             if (arg.startsWith("-XX:SharedArchiveFile") || arg.startsWith("-Xshare") || arg.startsWith("-Xlog:cds")
-                    || arg.startsWith("-XX:TieredStopAtLevel") || arg.startsWith("-Xss")) {
+                    || arg.startsWith("-XX:TieredStopAtLevel") || arg.startsWith("-XX:MaxNewSize") || arg.startsWith("-Xss")) {
                 c.add(arg);
                 stack |= arg.startsWith("-Xss");
             }
