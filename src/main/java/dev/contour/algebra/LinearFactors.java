@@ -246,7 +246,7 @@ public final class LinearFactors {
             // modulus reaches the coefficient bound; a cheap modular test screens each candidate
             // before the exact one. Horner's rule runs modulo m, so numbers stay the modulus's size.
             while (true) {
-                Rational cand = reconstruct(root, m);
+                Rational cand = RationalReconstruction.of(root, m);
                 if (cand != null && maybeRoot(a, cand) && isRoot(a, cand)) {
                     roots.add(cand);
                     break;
@@ -341,26 +341,5 @@ public final class LinearFactors {
         }
         // Horner with homogenising powers: s = sum a_k u^k v^(n-k) * v^0 after the loop.
         return s.signum() == 0;
-    }
-
-    /** u/v with |u|, |v| <= sqrt(m/2) and u = r v mod m, or null. */
-    static Rational reconstruct(BigInteger r, BigInteger m) {
-        BigInteger bound = m.shiftRight(1).sqrt();
-        BigInteger r0 = m;
-        BigInteger r1 = r.mod(m);
-        BigInteger s0 = BigInteger.ZERO;
-        BigInteger s1 = BigInteger.ONE;
-        while (r1.compareTo(bound) > 0) {
-            BigInteger[] qr = r0.divideAndRemainder(r1);
-            r0 = r1;
-            r1 = qr[1];
-            BigInteger s2 = s0.subtract(qr[0].multiply(s1));
-            s0 = s1;
-            s1 = s2;
-        }
-        if (s1.signum() == 0 || s1.abs().compareTo(bound) > 0 || !r1.gcd(s1).equals(BigInteger.ONE)) {
-            return null;
-        }
-        return Rational.of(r1, s1);
     }
 }

@@ -2,6 +2,7 @@ package dev.contour.solve;
 
 import dev.contour.Cancellation;
 import dev.contour.algebra.Rational;
+import dev.contour.algebra.RationalReconstruction;
 import java.math.BigInteger;
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -177,7 +178,7 @@ final class ModularPropagation {
                         residues[i] = 0;
                     }
                 }
-                Rational r = rational(garner(ps, inv, residues), modulus, bound);
+                Rational r = RationalReconstruction.of(garner(ps, inv, residues), modulus, bound);
                 if (r == null) {
                     return null;
                 }
@@ -209,29 +210,6 @@ final class ModularPropagation {
             x = x.multiply(BigInteger.valueOf(ps[j])).add(BigInteger.valueOf(digits[j]));
         }
         return x;
-    }
-
-    /** The fraction a/b with |a|, b &lt;= bound and a = b x modulo m, or null (Wang's rational reconstruction). */
-    static Rational rational(BigInteger x, BigInteger m, BigInteger bound) {
-        if (x.signum() == 0) {
-            return Rational.ZERO;
-        }
-        BigInteger r0 = m;
-        BigInteger r1 = x;
-        BigInteger t0 = BigInteger.ZERO;
-        BigInteger t1 = BigInteger.ONE;
-        while (r1.compareTo(bound) > 0) {
-            BigInteger[] qr = r0.divideAndRemainder(r1);
-            r0 = r1;
-            r1 = qr[1];
-            BigInteger t = t0.subtract(qr[0].multiply(t1));
-            t0 = t1;
-            t1 = t;
-        }
-        if (t1.signum() == 0 || t1.abs().compareTo(bound) > 0 || !r1.gcd(t1).equals(BigInteger.ONE)) {
-            return null;
-        }
-        return Rational.of(r1, t1);
     }
 
     /** A sparse vector modulo a prime: val[i] in (0, p) at coordinate idx[i], idx increasing. */
