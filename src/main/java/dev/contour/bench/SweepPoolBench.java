@@ -1,5 +1,6 @@
 package dev.contour.bench;
 
+import dev.contour.Parallel;
 import dev.contour.cli.BenchRegistry;
 import dev.contour.sweep.SweepCommand;
 import dev.contour.sweep.TupleRunner;
@@ -79,18 +80,29 @@ public final class SweepPoolBench implements BenchRegistry.Provider {
                 PrintStream sink = new PrintStream(OutputStream.nullOutputStream());
                 runInProcess(text, script, new int[] {2, 2, 2, 2}, sink); // warm-up
                 String load = load();
-                long t0 = System.nanoTime();
-                for (int[] w : tuples) {
-                    runInProcess(text, script, w, sink);
+                // the baseline computes each tuple on one thread, as a --tuple-threads 1 worker does
+                int threadsBefore = Parallel.threads();
+                double inProcess;
+                Parallel.setThreads(1);
+                try {
+                    long t0 = System.nanoTime();
+                    for (int[] w : tuples) {
+                        runInProcess(text, script, w, sink);
+                    }
+                    inProcess = (System.nanoTime() - t0) / 1e9;
+                } finally {
+                    Parallel.setThreads(threadsBefore);
                 }
-                double inProcess = (System.nanoTime() - t0) / 1e9;
-                double one = sweep(script, dir.resolve("one"), top, 1);
-                double two = sweep(script, dir.resolve("two"), top, 2);
-                out.printf("correlators p_i <= %d (%d tuples), load before: %s%n", top, n, load);
-                out.printf("%-34s %8.2f s%n", "in-process, one after another", inProcess);
-                out.printf("%-34s %8.2f s%n", "contour sweep --jobs 1 (wall)", one);
-                out.printf("%-34s %8.2f s   (%.2fx faster than --jobs 1)%n", "contour sweep --jobs 2 (wall)", two, one / two);
-                out.printf("%-34s %8.1f ms%n", "overhead per tuple (--jobs 1)", (one - inProcess) / n * 1000);
+                double one = sweep(script, dir.resolve("one"), top, 1, "1");
+                double two = sweep(script, dir.resolve("two"), top, 2, "1");
+                double oneAll = sweep(script, dir.resolve("one-all"), top, 1, null);
+                int cores = Runtime.getRuntime().availableProcessors();
+                out.printf("correlators p_i <= %d (%d tuples), %d cores, load before: %s%n", top, n, cores, load);
+                out.printf("%-46s %8.2f s%n", "in-process, one after another, 1 thread", inProcess);
+                out.printf("%-46s %8.2f s%n", "contour sweep --jobs 1 --tuple-threads 1", one);
+                out.printf("%-46s %8.2f s   (%.2fx faster than --jobs 1)%n", "contour sweep --jobs 2 --tuple-threads 1", two, one / two);
+                out.printf("%-46s %8.2f s   (the worker's tuple on %d threads)%n", "contour sweep --jobs 1", oneAll, cores);
+                out.printf("%-46s %8.1f ms%n", "overhead per tuple (--jobs 1 --tuple-threads 1)", (one - inProcess) / n * 1000);
             } finally {
                 try (Stream<Path> s = Files.walk(dir)) {
                     s.sorted(Comparator.reverseOrder()).forEach(f -> f.toFile().delete());
@@ -112,14 +124,19 @@ public final class SweepPoolBench implements BenchRegistry.Provider {
         }
     }
 
-    private static double sweep(Path script, Path results, int top, int jobs) {
+    /** Wall time of the benchmark sweep; {@code threads} null leaves --tuple-threads at its default. */
+    private static double sweep(Path script, Path results, int top, int jobs, String threads) {
         ByteArrayOutputStream o = new ByteArrayOutputStream();
         ByteArrayOutputStream e = new ByteArrayOutputStream();
         long t0 = System.nanoTime();
-        int code = new SweepCommand().run(java.util.List.of(script.toString(), "--over",
-                        "p1 in 2.." + top + ", p2 in 2.." + top + ", p3 in 2.." + top + ", p4 in 2.." + top + ", h in 4.." + 2 * top,
-                        "--where", "p2 <= p1, p3 <= p2, p4 <= p3, p2 + p3 + p4 >= p1 + 4, p1 + p2 + p3 + p4 = 2*h",
-                        "--results", results.toString(), "--jobs", Integer.toString(jobs)), System.in,
+        List<String> args = new ArrayList<>(List.of(script.toString(), "--over",
+                "p1 in 2.." + top + ", p2 in 2.." + top + ", p3 in 2.." + top + ", p4 in 2.." + top + ", h in 4.." + 2 * top,
+                "--where", "p2 <= p1, p3 <= p2, p4 <= p3, p2 + p3 + p4 >= p1 + 4, p1 + p2 + p3 + p4 = 2*h",
+                "--results", results.toString(), "--jobs", Integer.toString(jobs)));
+        if (threads != null) {
+            args.addAll(List.of("--tuple-threads", threads));
+        }
+        int code = new SweepCommand().run(args, System.in,
                 new PrintStream(o, true, StandardCharsets.UTF_8), new PrintStream(e, true, StandardCharsets.UTF_8));
         double wall = (System.nanoTime() - t0) / 1e9;
         if (code != 0) {

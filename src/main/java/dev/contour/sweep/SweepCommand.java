@@ -39,6 +39,8 @@ public final class SweepCommand implements Subcommand {
             sweep options:
               --results DIR         results folder (default: the script's name with .sweep)
               --jobs N              worker processes (default: every core)
+              --tuple-threads N     threads each worker computes its tuple with (default: the
+                                    cores left over per worker, at least 1; 1 with --jobs = cores)
               --memory SIZE         heap of each worker, so of each tuple (512m, 2g; default: a share of memory)
               --tuple-time SECONDS  wall-clock limit of one tuple (default 3600)
               --retry-failed        run again the tuples whose record is a failure
@@ -74,6 +76,8 @@ public final class SweepCommand implements Subcommand {
         String where = "";
         Path results;
         int jobs = Runtime.getRuntime().availableProcessors();
+        /** 0: the cores per worker. */
+        int tupleThreads;
         String memory;
         long tupleSeconds = 3600;
         boolean retryFailed;
@@ -170,6 +174,13 @@ public final class SweepCommand implements Subcommand {
                 }
                 case "--results" -> o.results = Path.of(value(a, ++i, w));
                 case "--jobs" -> o.jobs = positive(value(a, ++i, w), w);
+                case "--tuple-threads" -> {
+                    try {
+                        o.tupleThreads = dev.contour.Parallel.parseThreads(value(a, ++i, w), w);
+                    } catch (dev.contour.ContourException e) {
+                        throw new Usage(e.getMessage());
+                    }
+                }
                 case "--memory" -> {
                     o.memory = value(a, ++i, w).toLowerCase(Locale.ROOT);
                     if (!o.memory.matches("\\d+[kmg]")) {
@@ -339,9 +350,11 @@ public final class SweepCommand implements Subcommand {
         String memory = o.memory != null ? o.memory : defaultMemory(jobs);
         String memoryNote = "each tuple's heap is --memory " + memory + "; raise it with --memory SIZE";
         if (!todo.isEmpty()) {
+            int threads = o.tupleThreads > 0 ? o.tupleThreads : Math.max(1, Runtime.getRuntime().availableProcessors() / jobs);
             err.println("sweep: " + todo.size() + " of " + tuples.size() + " tuples to run on " + jobs + " worker"
-                    + (jobs == 1 ? "" : "s") + " (" + memory + " heap each) into " + folder.root());
-            WorkerPool.Settings settings = new WorkerPool.Settings(javaCommand(memory, jobs),
+                    + (jobs == 1 ? "" : "s") + " (" + memory + " heap and " + threads + " thread" + (threads == 1 ? "" : "s")
+                    + " each) into " + folder.root());
+            WorkerPool.Settings settings = new WorkerPool.Settings(javaCommand(memory, threads),
                     List.of(folder.root().toAbsolutePath().toString(), o.script.toAbsolutePath().toString(),
                             o.rules == null ? "" : o.rules.toAbsolutePath().toString(), Long.toString(o.tupleSeconds), memoryNote),
                     jobs, Duration.ofSeconds(o.tupleSeconds + 2 + o.tupleSeconds / 10), memoryNote,
@@ -405,8 +418,11 @@ public final class SweepCommand implements Subcommand {
         return b.toString();
     }
 
-    /** The JVM that runs workers: this one's executable and class path, its JIT/GC/sharing options, the tuple heap. */
-    private static List<String> javaCommand(String memory, int jobs) {
+    /**
+     * The JVM that runs workers: this one's executable and class path, its JIT/GC/sharing options,
+     * the tuple heap, and the cores the worker may use (its pool's threads and its collector's).
+     */
+    private static List<String> javaCommand(String memory, int threads) {
         List<String> c = new ArrayList<>();
         c.add(ProcessHandle.current().info().command().orElse(Path.of(System.getProperty("java.home"), "bin", "java").toString()));
         boolean stack = false;
@@ -427,8 +443,8 @@ public final class SweepCommand implements Subcommand {
         c.add("-XX:GCTimeLimit=90");
         c.add("-XX:GCHeapFreeLimit=10");
         c.add("-Xmx" + memory);
-        int cores = Runtime.getRuntime().availableProcessors();
-        c.add("-XX:ActiveProcessorCount=" + Math.max(1, cores / jobs)); // workers share the cores rather than each claiming all
+        // workers share the cores rather than each claiming all; the worker's pool sizes itself from this
+        c.add("-XX:ActiveProcessorCount=" + threads);
         c.add("-cp");
         c.add(System.getProperty("java.class.path"));
         return c;

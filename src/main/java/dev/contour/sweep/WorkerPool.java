@@ -175,6 +175,8 @@ final class WorkerPool {
             command.add(SweepWorker.class.getName());
             command.addAll(settings.workerArguments());
             ProcessBuilder b = new ProcessBuilder(command);
+            // the worker's threads come from its -XX:ActiveProcessorCount, not the sweep's own setting
+            b.environment().remove(dev.contour.Parallel.THREADS_VARIABLE);
             b.redirectError(ProcessBuilder.Redirect.appendTo(folder.logs().resolve(
                     "worker-" + ProcessHandle.current().pid() + "-" + number + ".log").toFile()));
             process = b.start();

@@ -78,6 +78,15 @@ class SweepTest {
         assertEquals(records(dir.resolve("one")), records(dir.resolve("two")));
         assertEquals(6, records(dir.resolve("one")).size());
         assertEquals(one.out(), two.out());
+        // each worker's threads: what the user chose, else the cores per worker (at least one)
+        int cores = Runtime.getRuntime().availableProcessors();
+        assertTrue(one.err().contains(" heap and " + cores + " thread"), one.err());
+        assertTrue(two.err().contains(" heap and " + Math.max(1, cores / 2) + " thread"), two.err());
+        Cli three = cli("sweep", script.toString(), "--over", "n", "in", "1..6", "--results", dir.resolve("three").toString(),
+                "--jobs", "2", "--tuple-threads", "3");
+        assertEquals(0, three.code(), three.err());
+        assertTrue(three.err().contains(" heap and 3 threads each)"), three.err());
+        assertEquals(records(dir.resolve("one")), records(dir.resolve("three")));
         // the table: tuple, status, then each shown value by label; 2^n n!/(s (s+2)...(s+2n)) at n = 3 is 48/(...)
         assertTrue(one.out().contains("3 | ok     | -1  | 48/(s*(s + 2)*(s + 4)*(s + 6))"), one.out());
         // a rerun finds every tuple done and runs nothing
@@ -240,6 +249,9 @@ class SweepTest {
         // usage errors
         assertEquals(2, cli("sweep", script.toString()).code());
         assertEquals(2, cli("sweep", script.toString(), "--over", "n", "in", "1..2", "--jobs", "0").code());
+        Cli threads = cli("sweep", script.toString(), "--over", "n", "in", "1..2", "--tuple-threads", "none");
+        assertEquals(2, threads.code());
+        assertTrue(threads.err().contains("--tuple-threads needs a whole number of threads"), threads.err());
         assertEquals(2, cli("sweep", "--merge", dir.resolve("nothing").toString()).code());
     }
 
