@@ -102,7 +102,22 @@ public final class Monomial implements Comparable<Monomial> {
         if (n == 0) {
             return ONE;
         }
-        return new Monomial(n == v.length ? v : Arrays.copyOf(v, n), n == x.length ? x : Arrays.copyOf(x, n));
+        // the product usually has the names of a factor (sigma^i tau^j times sigma^k tau^l): share that
+        // factor's array, since a large operator application holds millions of monomials at once
+        String[] names = sameNames(v, n, vars) ? vars : sameNames(v, n, o.vars) ? o.vars : n == v.length ? v : Arrays.copyOf(v, n);
+        return new Monomial(names, n == x.length ? x : Arrays.copyOf(x, n));
+    }
+
+    private static boolean sameNames(String[] v, int n, String[] names) {
+        if (n != names.length) {
+            return false;
+        }
+        for (int k = 0; k < n; k++) {
+            if (v[k] != names[k]) {
+                return false;
+            }
+        }
+        return true;
     }
 
     public Monomial pow(int e) {

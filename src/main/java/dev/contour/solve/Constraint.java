@@ -61,6 +61,14 @@ public final class Constraint {
 
         /** The piece for index i in 0..count-1, built over variables(). */
         Piece piece(int i);
+
+        /**
+         * The piece for index i; {@code keep} false says no later condition asks for it, so a source
+         * that keeps built pieces for reuse may let this one go (the default just builds it).
+         */
+        default Piece piece(int i, boolean keep) {
+            return piece(i);
+        }
     }
 
     final PieceSource source;

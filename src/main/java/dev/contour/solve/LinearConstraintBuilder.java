@@ -53,7 +53,11 @@ public final class LinearConstraintBuilder {
             // rows in a fixed order (shard by shard, each in the order its keys were first met in
             // chunk order), so pivots and free unknowns are reproducible for any thread count
             List<Accumulator> accs = new ArrayList<>();
-            for (Map<Object, Accumulator> shard : collect(c, progress)) {
+            boolean reused = false;
+            for (int later = k + 1; later < constraints.size(); later++) {
+                reused |= constraints.get(later).source == c.source;
+            }
+            for (Map<Object, Accumulator> shard : collect(c, reused, progress)) {
                 accs.addAll(shard.values());
                 shard.clear();
             }
@@ -78,9 +82,9 @@ public final class LinearConstraintBuilder {
      * split by shard, and each shard merges the chunks in chunk order (under its own lock, by
      * whichever thread completes the next chunk in line), so the shards merge at the same time and
      * their contents and order do not depend on the number of threads. A chunk's maps are dropped
-     * once merged.
+     * once merged. {@code keepPieces} false: no later constraint reads this source.
      */
-    private List<Map<Object, Accumulator>> collect(Constraint c, SolveProgress progress) {
+    private List<Map<Object, Accumulator>> collect(Constraint c, boolean keepPieces, SolveProgress progress) {
         Constraint.PieceSource src = c.source;
         List<String> vars = src.variables();
         Applier apply = applier(c.condition, vars);
@@ -103,7 +107,7 @@ public final class LinearConstraintBuilder {
             }
             for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
                 Cancellation.check();
-                Piece piece = src.piece(i);
+                Piece piece = src.piece(i, keepPieces);
                 int col = piece.column;
                 for (int j = 0; j < piece.terms.size(); j++) {
                     apply.to(piece.terms.get(j), piece.monomials.get(j), (key, value) ->

@@ -128,6 +128,20 @@ final class ShiftedPieces implements Constraint.PieceSource {
 
     @Override
     public Piece piece(int i) {
+        return piece(i, true);
+    }
+
+    /**
+     * Kept pieces stay for the next condition; a piece asked for the last time is handed out and
+     * forgotten (at p = 512 the pieces of one application are over 300 MB the collector would
+     * otherwise keep tracing while the equations are built).
+     */
+    @Override
+    public Piece piece(int i, boolean keep) {
+        if (!keep) {
+            Piece done = built.getAndSet(i, null);
+            return done != null ? done : compute(i);
+        }
         Piece done = built.get(i);
         if (done == null) {
             done = compute(i);
