@@ -6,9 +6,7 @@ import dev.contour.algebra.Monomial;
 import dev.contour.algebra.Rational;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
 import java.util.concurrent.atomic.AtomicLong;
 import java.util.concurrent.atomic.AtomicReferenceArray;
 
@@ -50,15 +48,15 @@ public final class LinearConstraintBuilder {
             Constraint c = constraints.get(k);
             int tag = system.constraint(c.span, c.label);
             progress.constraint(k + 1, constraints.size());
-            // rows in a fixed order (shard by shard, each in the order its keys were first met in
-            // chunk order), so pivots and free unknowns are reproducible for any thread count
-            List<Accumulator> accs = new ArrayList<>();
             boolean reused = false;
             for (int later = k + 1; later < constraints.size(); later++) {
                 reused |= constraints.get(later).source == c.source;
             }
-            for (Map<Object, Accumulator> shard : collect(c, reused, progress)) {
-                accs.addAll(shard.values());
+            // rows in a fixed order (shard by shard, each in the order its keys were first met in
+            // chunk order), so pivots and free unknowns are reproducible for any thread count
+            List<Accumulator> accs = new ArrayList<>();
+            for (EquationTable shard : collect(c, reused, progress)) {
+                accs.addAll(shard.order);
                 shard.clear();
             }
             // each accumulator is dropped once it is a row, so the two forms of an equation are not all held at once
@@ -77,51 +75,52 @@ public final class LinearConstraintBuilder {
     }
 
     /**
-     * The contributions of every piece summed per equation key, in {@link #SHARDS} maps by key hash.
+     * The contributions of every piece summed per equation key, in {@link #SHARDS} tables by key hash.
      * Pieces go in fixed chunks (not one per thread) to the pool; each chunk's contributions are
      * split by shard, and each shard merges the chunks in chunk order (under its own lock, by
      * whichever thread completes the next chunk in line), so the shards merge at the same time and
-     * their contents and order do not depend on the number of threads. A chunk's maps are dropped
+     * their contents and order do not depend on the number of threads. A chunk's tables are dropped
      * once merged. {@code keepPieces} false: no later constraint reads this source.
      */
-    private List<Map<Object, Accumulator>> collect(Constraint c, boolean keepPieces, SolveProgress progress) {
+    private List<EquationTable> collect(Constraint c, boolean keepPieces, SolveProgress progress) {
         Constraint.PieceSource src = c.source;
         List<String> vars = src.variables();
         Applier apply = applier(c.condition, vars);
         int n = src.count();
         AtomicLong pieces = new AtomicLong();
         int chunks = (n + CHUNK - 1) / CHUNK;
-        List<Map<Object, Accumulator>> merged = new ArrayList<>();
+        List<EquationTable> merged = new ArrayList<>();
         Object[] locks = new Object[SHARDS];
         int[] nextChunk = new int[SHARDS];
         for (int s = 0; s < SHARDS; s++) {
-            merged.add(new LinkedHashMap<>());
+            merged.add(new EquationTable(64));
             locks[s] = new Object();
         }
-        AtomicReferenceArray<Map<Object, Accumulator>[]> done = new AtomicReferenceArray<>(chunks);
+        AtomicReferenceArray<EquationTable[]> done = new AtomicReferenceArray<>(chunks);
         Parallel.map(chunks, k -> {
-            @SuppressWarnings("unchecked")
-            Map<Object, Accumulator>[] local = new Map[SHARDS];
+            EquationTable[] local = new EquationTable[SHARDS];
             for (int s = 0; s < SHARDS; s++) {
-                local[s] = new LinkedHashMap<>(64);
+                local[s] = new EquationTable(16);
             }
             for (int i = k * CHUNK; i < Math.min(n, (k + 1) * CHUNK); i++) {
                 Cancellation.check();
                 Piece piece = src.piece(i, keepPieces);
                 int col = piece.column;
                 for (int j = 0; j < piece.terms.size(); j++) {
-                    apply.to(piece.terms.get(j), piece.monomials.get(j), (key, value) ->
-                            local[shard(key)].computeIfAbsent(key, x -> new Accumulator()).add(col, value));
+                    apply.to(piece.terms.get(j), piece.monomials.get(j), (key, value) -> {
+                        int h = spread(key.hashCode());
+                        local[shard(h)].get(key, h).add(col, value);
+                    });
                 }
             }
             progress.pieces(pieces.addAndGet(Math.min(n, (k + 1) * CHUNK) - k * CHUNK), n);
             done.set(k, local); // published before any shard is merged, so a merger holding a lock sees it or we do
             for (int s = 0; s < SHARDS; s++) {
                 synchronized (locks[s]) {
-                    Map<Object, Accumulator> into = merged.get(s);
+                    EquationTable into = merged.get(s);
                     for (int next = nextChunk[s]; next < chunks && done.get(next) != null; next = ++nextChunk[s]) {
-                        Map<Object, Accumulator>[] ready = done.get(next);
-                        ready[s].forEach((key, acc) -> into.merge(key, acc, Accumulator::merge));
+                        EquationTable[] ready = done.get(next);
+                        into.absorb(ready[s]);
                         ready[s] = null;
                     }
                 }
@@ -131,10 +130,85 @@ public final class LinearConstraintBuilder {
         return merged;
     }
 
-    private static int shard(Object key) {
-        int h = key.hashCode();
-        h ^= h >>> 16;
-        return (h * 0x9E3779B9 >>> 27) & (SHARDS - 1);
+    /** The key hash with its high bits folded in (the tables index by the low bits). */
+    private static int spread(int h) {
+        return h ^ h >>> 16;
+    }
+
+    private static int shard(int spread) {
+        return (spread * 0x9E3779B9 >>> 27) & (SHARDS - 1);
+    }
+
+    /**
+     * Accumulators by key, chained through the accumulators themselves (no entry objects: a p = 512
+     * build holds over a million equations, and every object is traced by each collection), and in
+     * the order their keys were first met.
+     */
+    private static final class EquationTable {
+        private Accumulator[] buckets;
+        final ArrayList<Accumulator> order;
+
+        EquationTable(int capacity) {
+            buckets = new Accumulator[capacity];
+            order = new ArrayList<>(capacity);
+        }
+
+        /** The accumulator of a key, new (and last in order) if the key was not met before. */
+        Accumulator get(Object key, int hash) {
+            Accumulator a = find(key, hash);
+            if (a == null) {
+                a = new Accumulator(key, hash);
+                insert(a);
+            }
+            return a;
+        }
+
+        private Accumulator find(Object key, int hash) {
+            for (Accumulator a = buckets[hash & (buckets.length - 1)]; a != null; a = a.next) {
+                if (a.hash == hash && (a.key == key || a.key.equals(key))) {
+                    return a;
+                }
+            }
+            return null;
+        }
+
+        private void insert(Accumulator a) {
+            if (order.size() >= buckets.length - (buckets.length >> 2)) {
+                grow();
+            }
+            int b = a.hash & (buckets.length - 1);
+            a.next = buckets[b];
+            buckets[b] = a;
+            order.add(a);
+        }
+
+        private void grow() {
+            Accumulator[] old = buckets;
+            buckets = new Accumulator[old.length * 2];
+            for (Accumulator a : order) {
+                int b = a.hash & (buckets.length - 1);
+                a.next = buckets[b];
+                buckets[b] = a;
+            }
+        }
+
+        /** Adds another table's sums, its new keys after this one's in their order; the other is spent. */
+        void absorb(EquationTable other) {
+            for (Accumulator a : other.order) {
+                Accumulator mine = find(a.key, a.hash);
+                if (mine == null) {
+                    insert(a); // the other table is dropped, so its accumulator moves here whole
+                } else {
+                    mine.merge(a);
+                }
+            }
+        }
+
+        void clear() {
+            buckets = new Accumulator[1];
+            order.clear();
+            order.trimToSize();
+        }
     }
 
     /** Applies a condition to one factored term under a root key. */
@@ -183,25 +257,34 @@ public final class LinearConstraintBuilder {
     }
 
     /**
-     * Contributions to one equation: column to summed value (-1 is the part free of unknowns).
-     * Compact because a p = 512 ansatz holds over a million of them at once (most with one or two
-     * entries): the first entry lives in fields, the others in arrays; a value is kept as a
-     * numerator and denominator pair of longs while it fits, a {@link Rational} only when not.
+     * Contributions to one equation, under its key: column to summed value (-1 is the part free of
+     * unknowns). Compact because a p = 512 ansatz holds over a million of them at once (most with one
+     * or two entries): the first entry lives in fields, the others in one array of (column,
+     * numerator, denominator) triples; a value is kept as a pair of longs while it fits, a
+     * {@link Rational} (in {@code bigs}) only when not.
      */
     private static final class Accumulator {
+        final Object key;
+        final int hash;
+        /** The next accumulator in the same bucket of its table. */
+        Accumulator next;
         private int size;
         private int col0;
         private long num0;
         private long den0;
         private Rational big0;
-        /** Entries 1, 2, ... at index i - 1; {@code bigs} is null until a value needs it. */
-        private int[] cols;
-        private long[] nums;
-        private long[] dens;
+        /** Entry i >= 1 at 3 (i - 1): column, numerator, denominator. */
+        private long[] rest;
+        /** Entry i >= 1 at i - 1 when its value does not fit in longs; null until one needs it. */
         private Rational[] bigs;
 
+        Accumulator(Object key, int hash) {
+            this.key = key;
+            this.hash = hash;
+        }
+
         private int col(int i) {
-            return i == 0 ? col0 : cols[i - 1];
+            return i == 0 ? col0 : (int) rest[3 * (i - 1)];
         }
 
         private Rational value(int i) {
@@ -209,7 +292,7 @@ public final class LinearConstraintBuilder {
                 return big0 != null ? big0 : Rational.of(num0, den0);
             }
             Rational b = bigs == null ? null : bigs[i - 1];
-            return b != null ? b : Rational.of(nums[i - 1], dens[i - 1]);
+            return b != null ? b : Rational.of(rest[3 * i - 2], rest[3 * i - 1]);
         }
 
         private void set(int i, Rational v) {
@@ -221,14 +304,14 @@ public final class LinearConstraintBuilder {
                 return;
             }
             if (small) {
-                nums[i - 1] = v.longNum();
-                dens[i - 1] = v.longDen();
+                rest[3 * i - 2] = v.longNum();
+                rest[3 * i - 1] = v.longDen();
                 if (bigs != null) {
                     bigs[i - 1] = null;
                 }
             } else {
                 if (bigs == null) {
-                    bigs = new Rational[cols.length];
+                    bigs = new Rational[rest.length / 3];
                 }
                 bigs[i - 1] = v;
             }
@@ -243,30 +326,25 @@ public final class LinearConstraintBuilder {
             }
             if (size > 0) {
                 int k = size - 1;
-                if (cols == null) {
-                    cols = new int[2];
-                    nums = new long[2];
-                    dens = new long[2];
-                } else if (k == cols.length) {
-                    cols = Arrays.copyOf(cols, k * 2);
-                    nums = Arrays.copyOf(nums, k * 2);
-                    dens = Arrays.copyOf(dens, k * 2);
+                if (rest == null) {
+                    rest = new long[3];
+                } else if (3 * k == rest.length) {
+                    rest = Arrays.copyOf(rest, 6 * k);
                     if (bigs != null) {
-                        bigs = Arrays.copyOf(bigs, k * 2);
+                        bigs = Arrays.copyOf(bigs, 2 * k);
                     }
                 }
-                cols[k] = col;
+                rest[3 * k] = col;
             } else {
                 col0 = col;
             }
             set(size++, v);
         }
 
-        Accumulator merge(Accumulator o) {
+        void merge(Accumulator o) {
             for (int i = 0; i < o.size; i++) {
                 add(o.col(i), o.value(i));
             }
-            return this;
         }
 
         IntegerRow toRow(int tag) {
