@@ -36,17 +36,12 @@ public final class Ads7Bench {
 
     /** k = 2..6, or the list in CONTOUR_ADS7_K ("4" or "2,3,4"). */
     private static int[] sizes() {
-        String env = System.getenv("CONTOUR_ADS7_K");
-        if (env == null || env.isBlank()) {
-            return new int[] {2, 3, 4, 5, 6};
-        }
-        return java.util.Arrays.stream(env.split(",")).map(String::trim).mapToInt(Integer::parseInt).toArray();
+        return dev.contour.cli.BenchEnv.numbers("CONTOUR_ADS7_K", 2, 3, 4, 5, 6);
     }
 
     /** The statement budget of the solve: CONTOUR_ADS7_BUDGET seconds (0: no limit), default 30 minutes. */
     private static java.time.Duration budget() {
-        String env = System.getenv("CONTOUR_ADS7_BUDGET");
-        return java.time.Duration.ofSeconds(env == null || env.isBlank() ? 1800 : Long.parseLong(env.trim()));
+        return java.time.Duration.ofSeconds(dev.contour.cli.BenchEnv.number("CONTOUR_ADS7_BUDGET", 0, 1800));
     }
 
     /** The ansatz and the derived equations for k. */

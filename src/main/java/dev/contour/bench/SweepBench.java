@@ -45,11 +45,7 @@ public final class SweepBench {
     }
 
     private static int[] sizes() {
-        String env = System.getenv("CONTOUR_SWEEP_N");
-        if (env == null || env.isBlank()) {
-            return DEFAULT_N;
-        }
-        return java.util.Arrays.stream(env.split(",")).map(String::trim).mapToInt(Integer::parseInt).toArray();
+        return dev.contour.cli.BenchEnv.numbers("CONTOUR_SWEEP_N", DEFAULT_N);
     }
 
     /** The sweep script for weights up to n. */
@@ -95,9 +91,7 @@ public final class SweepBench {
 
     /** The statement budget of a sweep: CONTOUR_SWEEP_BUDGET seconds (0: no limit), default two hours. */
     private static Duration budget() {
-        String env = System.getenv("CONTOUR_SWEEP_BUDGET");
-        long seconds = env == null || env.isBlank() ? 7200 : Long.parseLong(env.trim());
-        return Duration.ofSeconds(seconds);
+        return Duration.ofSeconds(dev.contour.cli.BenchEnv.number("CONTOUR_SWEEP_BUDGET", 0, 7200));
     }
 
     private static long number(Interpreter session, String name) {

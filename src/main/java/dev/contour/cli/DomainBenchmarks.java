@@ -30,14 +30,6 @@ public final class DomainBenchmarks implements BenchRegistry.Provider {
 
     /** The weights named by the environment variable (comma-separated), else the defaults. */
     private static int[] weights(String variable, int... defaults) {
-        String env = System.getenv(variable);
-        if (env == null || env.isBlank()) {
-            return defaults;
-        }
-        try {
-            return java.util.Arrays.stream(env.split(",")).map(String::trim).mapToInt(Integer::parseInt).toArray();
-        } catch (NumberFormatException e) {
-            throw new dev.contour.ContourException(variable + " must list whole numbers separated by commas, not '" + env + "'");
-        }
+        return BenchEnv.numbers(variable, defaults);
     }
 }
