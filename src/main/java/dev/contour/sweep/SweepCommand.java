@@ -34,7 +34,8 @@ public final class SweepCommand implements Subcommand {
                    contour sweep --merge FOLDER [TABLE OPTIONS]
 
             Runs SCRIPT once per tuple of the index set (written as after 'sum': ranges and linear
-            constraints), each tuple's values bound by name before the script starts.
+            constraints), each tuple's values bound by name before the script starts. Tuples start
+            from the end of the index set, where the costliest usually are.
 
             sweep options:
               --results DIR         results folder (default: the script's name with .sweep)
@@ -360,7 +361,12 @@ public final class SweepCommand implements Subcommand {
                     jobs, Duration.ofSeconds(o.tupleSeconds + 2 + o.tupleSeconds / 10), memoryNote,
                     "each tuple may take --tuple-time " + o.tupleSeconds + " s; raise it with --tuple-time SECONDS");
             SweepProgress progress = new SweepProgress(err, System.console() != null, todo.size());
-            new WorkerPool(settings, folder, mine).run(todo, progress);
+            // Workers take tuples from the end of the index set: sweeps over weights, k or widths
+            // list the costliest last, and started first they cannot be left running alone at the
+            // end while the other workers idle. Records and tables do not depend on the order.
+            List<Integer> order = new ArrayList<>(todo);
+            java.util.Collections.reverse(order);
+            new WorkerPool(settings, folder, mine).run(order, progress);
             progress.close();
         } else {
             err.println("sweep: every tuple" + (o.chunks > 0 ? " of chunk " + o.chunk + "/" + o.chunks : "")

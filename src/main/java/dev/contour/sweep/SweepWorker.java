@@ -20,6 +20,8 @@ import java.time.Duration;
 public final class SweepWorker {
     /** Exit status after a tuple exhausted the heap: the pool replaces this worker. */
     static final int EXIT_MEMORY = 3;
+    /** Follows "done INDEX" when the worker exits after that tuple (its heap ran out). */
+    static final String EXITING = "exiting";
 
     private SweepWorker() { }
 
@@ -47,10 +49,13 @@ public final class SweepWorker {
             int index = Integer.parseInt(line.trim());
             SweepRecord r = runner.run(manifest.tuple(index));
             folder.writeRecord(r);
-            protocol.println("done " + index);
             if (runner.exhaustedMemory()) {
+                // said with the answer, so the pool starts a fresh worker instead of sending the
+                // next tuple to one that is exiting (that tuple was then recorded as failed)
+                protocol.println("done " + index + " " + EXITING);
                 System.exit(EXIT_MEMORY);
             }
+            protocol.println("done " + index);
         }
         System.exit(0);
     }

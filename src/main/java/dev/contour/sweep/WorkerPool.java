@@ -136,6 +136,10 @@ final class WorkerPool {
             if (answer != null && answer.equals("done " + index)) {
                 return statusOf(file, tuple);
             }
+            if (answer != null && answer.equals("done " + index + " " + SweepWorker.EXITING)) {
+                retire(); // the next tuple goes to a fresh worker
+                return statusOf(file, tuple);
+            }
             String why;
             if (answer == null) {
                 process.descendants().forEach(ProcessHandle::destroyForcibly);

@@ -78,6 +78,18 @@ class SweepTest {
         assertEquals(records(dir.resolve("one")), records(dir.resolve("two")));
         assertEquals(6, records(dir.resolve("one")).size());
         assertEquals(one.out(), two.out());
+        // one worker takes the tuples from the end of the index set: its records were written n = 6 first
+        List<String> written;
+        try (Stream<Path> files = Files.list(dir.resolve("one").resolve("records"))) {
+            written = files.sorted(java.util.Comparator.comparing(f -> {
+                try {
+                    return Files.getLastModifiedTime(f);
+                } catch (IOException e) {
+                    throw new java.io.UncheckedIOException(e);
+                }
+            })).map(f -> f.getFileName().toString()).toList();
+        }
+        assertEquals(List.of("n=6.json", "n=5.json", "n=4.json", "n=3.json", "n=2.json", "n=1.json"), written);
         // each worker's threads: what the user chose, else the cores per worker (at least one)
         int cores = Runtime.getRuntime().availableProcessors();
         assertTrue(one.err().contains(" heap and " + cores + " thread"), one.err());
@@ -170,7 +182,7 @@ class SweepTest {
         Map<String, SweepRecord> rec = new ResultsFolder(folder).read().records();
         assertEquals(4, rec.size());
         assertEquals(SweepRecord.Status.OK, rec.get("n=1").status());
-        assertEquals(SweepRecord.Status.CHECK_FAILED, rec.get("n=2").status());
+        assertEquals(SweepRecord.Status.CHECK_FAILED, rec.get("n=2").status(), rec.get("n=2").error());
         assertEquals(SweepRecord.Status.ERROR, rec.get("n=3").status());
         assertTrue(rec.get("n=3").error().startsWith(script + ":2:"), rec.get("n=3").error());
         assertTrue(rec.get("n=3").error().contains("^"), "the error shows the line with a caret");
@@ -187,6 +199,12 @@ class SweepTest {
                 "--retry-failed", "--jobs", "1");
         assertTrue(retry.err().contains("3 of 4 tuples to run"), retry.err());
         assertEquals(1, retry.code());
+        // one worker runs n = 4 first and exits when its heap runs out; the next tuples get a fresh
+        // worker and fail for their own reasons, not because they were sent to the exiting one
+        Map<String, SweepRecord> again = new ResultsFolder(folder).read().records();
+        assertTrue(again.get("n=4").error().contains("out of memory"), again.get("n=4").error());
+        assertTrue(again.get("n=3").error().startsWith(script + ":2:"), again.get("n=3").error());
+        assertEquals(SweepRecord.Status.CHECK_FAILED, again.get("n=2").status(), again.get("n=2").error());
     }
 
     @Test
