@@ -32,6 +32,8 @@ public final class Main {
     public static final int OK = 0;
     public static final int CHECK_FAILED = 1;
     public static final int BAD_INPUT = 2;
+    /** Stopped by Ctrl-C (128 + SIGINT, as shells report it). */
+    public static final int INTERRUPTED = 130;
 
     private static final String USAGE = """
             usage: contour COMMAND [OPTIONS] [FILE...]
@@ -61,7 +63,9 @@ public final class Main {
               -h, --help       this help
               -V, --version    the version
 
-            exit status: 0 all checks held, 1 a check failed, 2 bad input or usage
+            exit status: 0 all checks held, 1 a check failed, 2 bad input or usage,
+                         130 stopped by Ctrl-C (run and check: the first Ctrl-C stops the
+                         statement with its location, a second one at once)
                          (repl on a terminal: 0 when left; piped: as for run)
             """;
 
@@ -273,7 +277,14 @@ public final class Main {
                 return BAD_INPUT;
             }
         }
-        int code = runFiles(files, o, checksOnly, out, err, report);
+        int code;
+        try (Interrupts ctrlC = Interrupts.install(Thread.currentThread(), err)) {
+            code = runFiles(files, o, checksOnly, out, err, report);
+            if (ctrlC.received()) {
+                err.println("contour: stopped by an interrupt (Ctrl-C); what was printed above stands, the rest did not run");
+                code = INTERRUPTED;
+            }
+        }
         if (report != null) {
             try {
                 report.write();
