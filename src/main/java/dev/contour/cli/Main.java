@@ -280,6 +280,7 @@ public final class Main {
         int code;
         try (Interrupts ctrlC = Interrupts.install(Thread.currentThread(), err)) {
             code = runFiles(files, o, checksOnly, out, err, report);
+            Thread.interrupted(); // an interrupt that came after the last check must not reach the report's writing
             if (ctrlC.received()) {
                 err.println("contour: stopped by an interrupt (Ctrl-C); what was printed above stands, the rest did not run");
                 code = INTERRUPTED;
