@@ -69,8 +69,8 @@ public final class SweepPoolBench implements BenchRegistry.Provider {
     }
 
     static void run(PrintStream out) {
-        int top = (int) BenchEnv.number("CONTOUR_SWEEP_BENCH_TOP", 2, 10);
-        int rounds = (int) BenchEnv.number("CONTOUR_SWEEP_BENCH_ROUNDS", 1, 2);
+        int top = BenchEnv.count("CONTOUR_SWEEP_BENCH_TOP", 2, 100, 10);
+        int rounds = BenchEnv.count("CONTOUR_SWEEP_BENCH_ROUNDS", 1, 100, 2);
         List<int[]> tuples = tuples(top);
         int n = tuples.size();
         try {

@@ -33,21 +33,27 @@ public final class BenchEnv {
 
     /** One whole number at least {@code min}, or the default when the variable is unset. */
     public static long number(String variable, long min, long fallback) {
-        return number(variable, System.getenv(variable), min, fallback);
+        return number(variable, System.getenv(variable), min, Long.MAX_VALUE, fallback);
     }
 
-    static long number(String variable, String env, long min, long fallback) {
+    /** A count between {@code min} and {@code max}, or the default when the variable is unset. */
+    public static int count(String variable, int min, int max, int fallback) {
+        return (int) number(variable, System.getenv(variable), min, max, fallback);
+    }
+
+    static long number(String variable, String env, long min, long max, long fallback) {
         if (env == null || env.isBlank()) {
             return fallback;
         }
         try {
             long v = Long.parseLong(env.trim());
-            if (v >= min) {
+            if (v >= min && v <= max) {
                 return v;
             }
         } catch (NumberFormatException e) {
             // reported below
         }
-        throw new ContourException(variable + " must be a whole number of at least " + min + ", not '" + env + "'");
+        throw new ContourException(variable + " must be a whole number " + (max == Long.MAX_VALUE ? "of at least " + min
+                : "from " + min + " to " + max) + ", not '" + env + "'");
     }
 }
